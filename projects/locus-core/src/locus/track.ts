@@ -1,0 +1,159 @@
+import type { Complex } from '../complex/complex';
+import { padTo, type Polynomial } from '../polynomial/polynomial';
+import { refineRoots, roots } from '../polynomial/roots';
+
+/** Roots of D + K·N traced along a gain path: `re[k][i]`, `im[k][i]` is branch i at `gains[k]`. */
+export interface Trace {
+  readonly gains: number[];
+  readonly re: Float64Array[];
+  readonly im: Float64Array[];
+  /** Steps at which tracking had to fall back to a cold solve. */
+  readonly fallbacks: number;
+}
+
+/** How finely to trace. */
+export interface TraceOptions {
+  /** Size of the region of interest in the plane (sets the finest spacing of points). */
+  readonly scale: number;
+  /** Real centre of the region of interest. */
+  readonly center: number;
+  /** Gain scale K₀: the path is uniform in u = asinh(|K|/K₀), linear near 0 and logarithmic far out. */
+  readonly gainScale: number;
+  /** Largest move of a pole in one step, as a fraction of max(scale, 2·distance from the centre). */
+  readonly moveFraction?: number;
+}
+
+/**
+ * Traces every root of D + K·N from K = 0 to `endGain` (either sign), landing exactly on each gain
+ * in `waypoints`. Each step warm-starts the Aberth–Ehrlich iteration from the previous roots
+ * (extrapolated along the path), accepts it only when it converged, no pole moved more than the
+ * resolution allows and each new root is the nearest to its own predecessor (so no branch can swap
+ * with another), and otherwise halves the step. A step that cannot be resolved falls back to a cold
+ * solve matched to the previous roots.
+ */
+export function trace(
+  numerator: Polynomial,
+  denominator: Polynomial,
+  startRoots: readonly Complex[],
+  endGain: number,
+  waypoints: readonly number[],
+  options: TraceOptions,
+): Trace {
+  const n = denominator.length - 1;
+  const sign = endGain < 0 ? -1 : 1;
+  const paddedN = Float64Array.from(padTo(numerator, n + 1));
+  const d = Float64Array.from(denominator);
+  const c = new Float64Array(n + 1);
+  const k0 = options.gainScale;
+  const moveFraction = options.moveFraction ?? 0.02;
+  const uOf = (g: number): number => Math.asinh(Math.abs(g) / k0);
+  const gainOf = (u: number): number => sign * k0 * Math.sinh(u);
+  const uEnd = uOf(endGain);
+  const stops = [...new Set(waypoints.map((w) => Math.abs(w)))]
+    .filter((w) => w > 0 && w < Math.abs(endGain))
+    .sort((a, b) => a - b)
+    .map((w) => ({ u: uOf(w), gain: sign * w }));
+  stops.push({ u: uEnd, gain: endGain });
+
+  let curRe = Float64Array.from(startRoots.map((r) => r.re));
+  let curIm = Float64Array.from(startRoots.map((r) => r.im));
+  let prevRe: Float64Array | null = null;
+  let prevIm: Float64Array | null = null;
+  let prevH = 0;
+  const gains = [0];
+  const outRe = [curRe];
+  const outIm = [curIm];
+  let u = 0;
+  let h = 0.01;
+  const hMax = 0.25;
+  let fallbacks = 0;
+  const newRe = new Float64Array(n);
+  const newIm = new Float64Array(n);
+  let stopIndex = 0;
+  while (stopIndex < stops.length && n > 0) {
+    const stop = stops[stopIndex];
+    const landing = u + h >= stop.u - 1e-12 * Math.max(1, stop.u);
+    const uNext = landing ? stop.u : u + h;
+    const step = uNext - u;
+    const gain = landing ? stop.gain : gainOf(uNext);
+    for (let i = 0; i <= n; i++) c[i] = d[i] + gain * paddedN[i];
+    // predictor: straight-line extrapolation of the last step, scaled to this one
+    const ratio = prevRe && prevH > 0 ? Math.min(step / prevH, 2) : 0;
+    for (let i = 0; i < n; i++) {
+      newRe[i] = curRe[i] + (prevRe ? (curRe[i] - prevRe[i]) * ratio : 0);
+      newIm[i] = curIm[i] + (prevIm ? (curIm[i] - prevIm[i]) * ratio : 0);
+    }
+    const refinement = refineRoots(c, newRe, newIm, 40);
+    let accepted = refinement.converged && isFaithful(curRe, curIm, newRe, newIm, options.scale, options.center, moveFraction);
+    if (!accepted && step <= 1e-10 * Math.max(1, uNext)) {
+      // the path cannot be resolved any finer: solve cold and pair by nearest distance
+      fallbacks++;
+      pairNearest(curRe, curIm, roots(Array.from(c)), newRe, newIm);
+      accepted = true;
+    }
+    if (!accepted) {
+      h = step / 2;
+      continue;
+    }
+    prevRe = curRe;
+    prevIm = curIm;
+    prevH = step;
+    curRe = Float64Array.from(newRe);
+    curIm = Float64Array.from(newIm);
+    symmetrizeInPlace(curRe, curIm, options.scale);
+    gains.push(gain);
+    outRe.push(curRe);
+    outIm.push(curIm);
+    u = uNext;
+    if (landing) stopIndex++;
+    h = Math.min(hMax, refinement.iterations <= 4 ? step * 1.6 : step * 1.15);
+    if (landing && stopIndex < stops.length) h = Math.min(h, 0.01 + (stops[stopIndex].u - u) / 4);
+  }
+  return { gains, re: outRe, im: outIm, fallbacks };
+}
+
+/**
+ * Whether the step kept every branch on its own root: each new root moved at most the allowed
+ * distance, and no other new root is closer to a branch's previous position than its own new root
+ * (up to a coincidence tolerance for roots that meet at a break point).
+ */
+function isFaithful(oldRe: Float64Array, oldIm: Float64Array, newRe: Float64Array, newIm: Float64Array, scale: number, center: number, fraction: number): boolean {
+  const n = oldRe.length;
+  const coincide = 1e-7 * scale;
+  for (let i = 0; i < n; i++) {
+    const move = Math.hypot(newRe[i] - oldRe[i], newIm[i] - oldIm[i]);
+    const far = Math.hypot(oldRe[i] - center, oldIm[i]);
+    if (!(move <= fraction * Math.max(scale, 2 * far))) return false;
+    for (let j = 0; j < n; j++) {
+      if (j === i) continue;
+      const other = Math.hypot(newRe[j] - oldRe[i], newIm[j] - oldIm[i]);
+      if (other + coincide < move) return false;
+    }
+  }
+  return true;
+}
+
+/** Assigns freshly solved roots to branches, each branch taking the nearest root still free. */
+function pairNearest(oldRe: Float64Array, oldIm: Float64Array, fresh: Complex[], outRe: Float64Array, outIm: Float64Array): void {
+  const n = oldRe.length;
+  const free = fresh.slice();
+  const pairs: { i: number; j: number; d: number }[] = [];
+  for (let i = 0; i < n; i++) for (let j = 0; j < free.length; j++) pairs.push({ i, j, d: Math.hypot(free[j].re - oldRe[i], free[j].im - oldIm[i]) });
+  pairs.sort((a, b) => a.d - b.d);
+  const branchDone = new Uint8Array(n);
+  const rootDone = new Uint8Array(free.length);
+  for (const p of pairs) {
+    if (branchDone[p.i] || rootDone[p.j]) continue;
+    branchDone[p.i] = 1;
+    rootDone[p.j] = 1;
+    outRe[p.i] = free[p.j].re;
+    outIm[p.i] = free[p.j].im;
+  }
+}
+
+/** Snaps near-real roots onto the real axis so that real segments of the locus are drawn exactly real. */
+function symmetrizeInPlace(re: Float64Array, im: Float64Array, scale: number): void {
+  for (let i = 0; i < re.length; i++) {
+    if (Math.abs(im[i]) <= 1e-11 * Math.max(scale, Math.abs(re[i]))) im[i] = 0;
+  }
+}

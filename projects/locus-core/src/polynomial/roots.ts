@@ -1,0 +1,211 @@
+import type { Complex } from '../complex/complex';
+import { symmetrize } from '../complex/conjugate-pairs';
+import type { Polynomial } from './polynomial';
+
+/** Outcome of a simultaneous root refinement. */
+export interface Refinement {
+  /** Whether every approximation reached the backward-error stop. */
+  readonly converged: boolean;
+  /** Sweeps used. */
+  readonly iterations: number;
+}
+
+/** Coefficient list accepted by the hot loops: a plain array or a Float64Array, highest power first. */
+export type Coefficients = ArrayLike<number>;
+
+/**
+ * Refines root approximations `re[i] + j·im[i]` of p in place by the Aberth–Ehrlich iteration
+ * (Gauss–Seidel sweeps), until each one meets the backward-error stop
+ * |p(z)| ≤ c·n·ε·Σ|a_k||z|^k or `maxIterations` sweeps are spent.
+ *
+ * Reference: O. Aberth, "Iteration methods for finding all zeros of a polynomial simultaneously",
+ * Math. Comp. 27 (1973); D. A. Bini, "Numerical computation of polynomial zeros by means of Aberth's
+ * method", Numer. Algorithms 13 (1996) — including the evaluation through the reversed polynomial for
+ * |z| > 1, which keeps Horner's rule from overflowing on large roots.
+ * The leading coefficient must be non-zero and `re`/`im` must hold exactly n = degree values.
+ */
+export function refineRoots(p: Coefficients, re: Float64Array, im: Float64Array, maxIterations = 60): Refinement {
+  const n = p.length - 1;
+  const tolerance = Math.max(8, 4 * n) * Number.EPSILON;
+  const done = new Uint8Array(n);
+  let remaining = n;
+  let iterations = 0;
+  while (remaining > 0 && iterations < maxIterations) {
+    iterations++;
+    for (let i = 0; i < n; i++) {
+      if (done[i]) continue;
+      const zr = re[i];
+      const zi = im[i];
+      const mod = Math.hypot(zr, zi);
+      let ratioRe: number;
+      let ratioIm: number;
+      if (mod <= 1) {
+        // p and p′ by Horner, and the backward-error scale Σ|a_k||z|^k
+        let pr = 0, pi = 0, dr = 0, di = 0, bound = 0;
+        for (let k = 0; k <= n; k++) {
+          const ndr = dr * zr - di * zi + pr;
+          di = dr * zi + di * zr + pi;
+          dr = ndr;
+          const npr = pr * zr - pi * zi + p[k];
+          pi = pr * zi + pi * zr;
+          pr = npr;
+          bound = bound * mod + Math.abs(p[k]);
+        }
+        if (Math.hypot(pr, pi) <= tolerance * bound) {
+          done[i] = 1;
+          remaining--;
+          continue;
+        }
+        const den = dr * dr + di * di;
+        if (den === 0) {
+          re[i] = zr + 1e-3 * (1 + mod);
+          im[i] = zi + 1e-3 * (1 + mod);
+          continue;
+        }
+        ratioRe = (pr * dr + pi * di) / den;
+        ratioIm = (pi * dr - pr * di) / den;
+      } else {
+        // q(y) = y^n p(1/y): Horner over the reversed coefficients at y = 1/z
+        const yd = zr * zr + zi * zi;
+        const yr = zr / yd;
+        const yi = -zi / yd;
+        const ymod = 1 / mod;
+        let qr = 0, qi = 0, dr = 0, di = 0, bound = 0;
+        for (let k = n; k >= 0; k--) {
+          const ndr = dr * yr - di * yi + qr;
+          di = dr * yi + di * yr + qi;
+          dr = ndr;
+          const nqr = qr * yr - qi * yi + p[k];
+          qi = qr * yi + qi * yr;
+          qr = nqr;
+          bound = bound * ymod + Math.abs(p[k]);
+        }
+        if (Math.hypot(qr, qi) <= tolerance * bound) {
+          done[i] = 1;
+          remaining--;
+          continue;
+        }
+        // p/p′ = 1 / (y·(n − y·q′/q))
+        const qd = qr * qr + qi * qi;
+        if (qd === 0) continue;
+        const tr = (dr * qr + di * qi) / qd; // q′/q
+        const ti = (di * qr - dr * qi) / qd;
+        const ur = n - (yr * tr - yi * ti);
+        const ui = -(yr * ti + yi * tr);
+        const vr = yr * ur - yi * ui;
+        const vi = yr * ui + yi * ur;
+        const vd = vr * vr + vi * vi;
+        if (vd === 0) continue;
+        ratioRe = vr / vd;
+        ratioIm = -vi / vd;
+      }
+      // Aberth correction: w = ratio / (1 − ratio·Σ_{j≠i} 1/(z_i − z_j))
+      let sr = 0, si = 0;
+      for (let j = 0; j < n; j++) {
+        if (j === i) continue;
+        const ar = zr - re[j];
+        const ai = zi - im[j];
+        const ad = ar * ar + ai * ai;
+        if (ad === 0) continue;
+        sr += ar / ad;
+        si -= ai / ad;
+      }
+      const cr = 1 - (ratioRe * sr - ratioIm * si);
+      const ci = -(ratioRe * si + ratioIm * sr);
+      const cd = cr * cr + ci * ci;
+      let wr: number, wi: number;
+      if (cd === 0 || !Number.isFinite(cd)) {
+        wr = ratioRe;
+        wi = ratioIm;
+      } else {
+        wr = (ratioRe * cr + ratioIm * ci) / cd;
+        wi = (ratioIm * cr - ratioRe * ci) / cd;
+      }
+      if (Number.isFinite(wr) && Number.isFinite(wi)) {
+        re[i] = zr - wr;
+        im[i] = zi - wi;
+      }
+    }
+  }
+  return { converged: remaining === 0, iterations };
+}
+
+/**
+ * Starting points for the Aberth iteration from the upper convex hull of the Newton polygon
+ * (k, log|a_k|): each hull edge gives a circle whose radius matches that group of root moduli.
+ * Reference: Bini (1996), section 3.
+ */
+export function initialApproximations(p: Coefficients, re: Float64Array, im: Float64Array): void {
+  const n = p.length - 1;
+  // points by power k (p is highest-first, so power k sits at index n − k)
+  const ks: number[] = [];
+  const logs: number[] = [];
+  for (let k = 0; k <= n; k++) {
+    const a = Math.abs(p[n - k]);
+    if (a > 0) {
+      ks.push(k);
+      logs.push(Math.log(a));
+    }
+  }
+  const hull: number[] = [];
+  for (let idx = 0; idx < ks.length; idx++) {
+    while (hull.length >= 2) {
+      const a = hull[hull.length - 2];
+      const b = hull[hull.length - 1];
+      const cross = (ks[b] - ks[a]) * (logs[idx] - logs[a]) - (logs[b] - logs[a]) * (ks[idx] - ks[a]);
+      if (cross >= 0) hull.pop();
+      else break;
+    }
+    hull.push(idx);
+  }
+  let slot = 0;
+  // a lowest power > 0 means exact zero roots; start those at the origin
+  for (let k = 0; k < ks[0]; k++) {
+    re[slot] = 0;
+    im[slot] = 0;
+    slot++;
+  }
+  for (let h = 0; h + 1 < hull.length; h++) {
+    const a = hull[h];
+    const b = hull[h + 1];
+    const count = ks[b] - ks[a];
+    const radius = Math.exp((logs[a] - logs[b]) / count);
+    for (let j = 0; j < count; j++) {
+      const theta = (2 * Math.PI * j) / count + (2 * Math.PI * h) / n + 0.4;
+      re[slot] = radius * Math.cos(theta);
+      im[slot] = radius * Math.sin(theta);
+      slot++;
+    }
+  }
+}
+
+/**
+ * All roots of a real polynomial (highest power first, leading zeros allowed), conjugate-symmetric,
+ * each with a backward error near machine precision. Roots at the origin are split off exactly.
+ * Example: roots([1, 3, 2]) = [{re: −1, im: 0}, {re: −2, im: 0}] (in some order).
+ */
+export function roots(polynomial: Polynomial): Complex[] {
+  let start = 0;
+  while (start < polynomial.length && polynomial[start] === 0) start++;
+  let end = polynomial.length;
+  const zeros: Complex[] = [];
+  while (end > start + 1 && polynomial[end - 1] === 0) {
+    end--;
+    zeros.push({ re: 0, im: 0 });
+  }
+  const p = polynomial.slice(start, end);
+  const n = p.length - 1;
+  if (n <= 0) return zeros;
+  if (n === 1) return [...zeros, { re: -p[1] / p[0], im: 0 }];
+  const re = new Float64Array(n);
+  const im = new Float64Array(n);
+  initialApproximations(p, re, im);
+  const first = refineRoots(p, re, im, 500);
+  if (!first.converged) {
+    // clustered roots converge linearly; a second, longer pass from where we are settles them
+    refineRoots(p, re, im, 2000);
+  }
+  const found: Complex[] = [];
+  for (let i = 0; i < n; i++) found.push({ re: re[i], im: im[i] });
+  return [...zeros, ...symmetrize(found, 64 * Number.EPSILON)];
+}
