@@ -36,4 +36,5 @@ export { pade } from './plant/pade';
 export { zeroOrderHoldEquivalent } from './plant/discretize';
 export { trace, type Trace, type TraceOptions } from './locus/track';
 export { characteristic } from './locus/stable-ranges';
+export { regionOf, gainScaleOf, type Region } from './locus/region';
 export { poleFigures } from './response/pole-figures';

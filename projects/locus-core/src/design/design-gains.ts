@@ -9,7 +9,7 @@ import { normalizePlant } from '../plant/normalize';
 import { roots } from '../polynomial/roots';
 import { poleFigures } from '../response/pole-figures';
 import type { DesignRequest, DesignResult, GainRange } from '../types/results';
-import { refineChange, sampledChanges } from './gain-boundaries';
+import { branchSignChanges, sampledChanges } from './gain-boundaries';
 import { judgedPoles, meetsRegion, targetRegion } from './targets';
 
 /** Most damping lines one request may ask for. */
@@ -64,9 +64,17 @@ export function designGains(request: DesignRequest): DesignResult {
       const scale = Math.max(1e-300, ...traced.openLoop.poles.map((p) => Math.hypot(p.re, p.im)));
       return unique(curveCrossings(numerator, denominator, dampingRay(zeta)).filter((c) => c.gain > 0 && Math.hypot(c.point.re, c.point.im) > 1e-9 * scale).map((c) => c.gain));
     }
-    // z-plane: count of upper-half-plane poles that are less damped than ζ changes where one crosses the curve
-    const count = (poles: Complex[]): number => poles.filter((p) => p.im > 0 && poleFigures(p, domain, sampleTime).dampingRatio < zeta).length;
-    return unique(sampledChanges(numerator, denominator, gains, polesAt, count).filter((g) => g > 0));
+    // z-plane: the constant-ζ curve is a spiral from z = 1 to the negative real axis at radius
+    // e^{−πζ/√(1−ζ²)}; a complex pole crosses it where ζ(z) − ζ changes sign in the upper half-plane, a
+    // real pole where it passes that end point
+    const end = Math.exp((-Math.PI * zeta) / Math.sqrt(1 - zeta * zeta));
+    const measure = (p: Complex): number | null => {
+      if (p.im > 0) return poleFigures(p, domain, sampleTime).dampingRatio - zeta;
+      if (p.im === 0 && p.re < 0) return end - Math.abs(p.re);
+      return null;
+    };
+    const branches = traced.branches.map((b) => b.points.map((q) => ({ re: q.re, im: q.im })));
+    return unique(branchSignChanges(numerator, denominator, gains, branches, measure).filter((g) => g > 0));
   }
 
   return {

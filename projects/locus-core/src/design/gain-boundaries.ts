@@ -39,11 +39,71 @@ export function sampledChanges(
   judge: (poles: Complex[]) => number | boolean,
 ): number[] {
   const out: number[] = [];
-  let previous = judge(polesAt(0));
-  for (let k = 1; k < gains.length; k++) {
+  // K = 0 itself is no boundary of a set of K > 0 (open-loop poles may sit on the stability boundary)
+  const first = gains[0] === 0 ? 1 : 0;
+  if (first >= gains.length) return out;
+  let previous = judge(polesAt(first));
+  for (let k = first + 1; k < gains.length; k++) {
     const current = judge(polesAt(k));
     if (current !== previous) out.push(refineChange(numerator, denominator, gains[k - 1], gains[k], judge));
     previous = current;
   }
   return out;
+}
+
+/**
+ * Gains where a quantity of one branch changes sign: `measure(point)` is evaluated along each traced
+ * branch (`null` where it does not apply), and each sign change between neighbouring samples is refined
+ * by bisection, following the branch at each midpoint by the fresh root nearest to where the branch is
+ * bracketed. `branches[i][k]` is branch i at `gains[k]`.
+ */
+export function branchSignChanges(
+  numerator: Polynomial,
+  denominator: Polynomial,
+  gains: readonly number[],
+  branches: readonly (readonly Complex[])[],
+  measure: (point: Complex) => number | null,
+): number[] {
+  const out: number[] = [];
+  for (const branch of branches) {
+    for (let k = 1; k < gains.length; k++) {
+      const a = measure(branch[k - 1]);
+      const b = measure(branch[k]);
+      if (a === null || b === null || a === 0 || Math.sign(a) === Math.sign(b)) continue;
+      let lowGain = gains[k - 1];
+      let highGain = gains[k];
+      let lowPoint = branch[k - 1];
+      let highPoint = branch[k];
+      for (let i = 0; i < 200 && highGain - lowGain > 4 * Number.EPSILON * Math.max(Math.abs(lowGain), Math.abs(highGain)); i++) {
+        const mid = (lowGain + highGain) / 2;
+        if (mid <= lowGain || mid >= highGain) break;
+        const guess = { re: (lowPoint.re + highPoint.re) / 2, im: (lowPoint.im + highPoint.im) / 2 };
+        const point = nearest(roots(characteristic(numerator, denominator, mid)), guess);
+        const value = measure(point);
+        if (value === null) break;
+        if (Math.sign(value) === Math.sign(a)) {
+          lowGain = mid;
+          lowPoint = point;
+        } else {
+          highGain = mid;
+          highPoint = point;
+        }
+      }
+      out.push((lowGain + highGain) / 2);
+    }
+  }
+  return out.sort((x, y) => x - y);
+}
+
+function nearest(points: readonly Complex[], to: Complex): Complex {
+  let best = points[0];
+  let bestDistance = Infinity;
+  for (const p of points) {
+    const d = (p.re - to.re) ** 2 + (p.im - to.im) ** 2;
+    if (d < bestDistance) {
+      bestDistance = d;
+      best = p;
+    }
+  }
+  return best;
 }

@@ -83,8 +83,18 @@ export function trace(
       newRe[i] = curRe[i] + (prevRe ? (curRe[i] - prevRe[i]) * ratio : 0);
       newIm[i] = curIm[i] + (prevIm ? (curIm[i] - prevIm[i]) * ratio : 0);
     }
-    const refinement = refineRoots(c, newRe, newIm, 40);
-    let accepted = refinement.converged && isFaithful(curRe, curIm, newRe, newIm, options.scale, options.center, moveFraction);
+    let refinement = { converged: true, iterations: 0 };
+    let accepted: boolean;
+    if (hasCluster(curRe, curIm, 1e-6 * options.scale)) {
+      // leaving a multiple root (a multiple open-loop pole, or a break point just landed on): the
+      // roots fan out like K^(1/q), which a warm start from one point cannot follow; solve cold and
+      // pair by distance — any pairing is continuous, the branches share the point they leave
+      pairNearest(curRe, curIm, roots(Array.from(c)), newRe, newIm);
+      accepted = isFaithful(curRe, curIm, newRe, newIm, options.scale, options.center, moveFraction) || step <= 1e-10 * Math.max(1, uNext);
+    } else {
+      refinement = refineRoots(c, newRe, newIm, 40);
+      accepted = refinement.converged && isFaithful(curRe, curIm, newRe, newIm, options.scale, options.center, moveFraction);
+    }
     if (!accepted && step <= 1e-10 * Math.max(1, uNext)) {
       // the path cannot be resolved any finer: solve cold and pair by nearest distance
       fallbacks++;
@@ -120,17 +130,42 @@ export function trace(
 function isFaithful(oldRe: Float64Array, oldIm: Float64Array, newRe: Float64Array, newIm: Float64Array, scale: number, center: number, fraction: number): boolean {
   const n = oldRe.length;
   const coincide = 1e-7 * scale;
+  // squared distances throughout: the comparisons need no square roots
   for (let i = 0; i < n; i++) {
-    const move = Math.hypot(newRe[i] - oldRe[i], newIm[i] - oldIm[i]);
-    const far = Math.hypot(oldRe[i] - center, oldIm[i]);
-    if (!(move <= fraction * Math.max(scale, 2 * far))) return false;
+    const ore = oldRe[i];
+    const oim = oldIm[i];
+    const dr = newRe[i] - ore;
+    const di = newIm[i] - oim;
+    const move2 = dr * dr + di * di;
+    const fr = ore - center;
+    const far2 = fr * fr + oim * oim;
+    const limit = fraction * Math.max(scale, 2 * Math.sqrt(far2));
+    if (!(move2 <= limit * limit)) return false;
+    const move = Math.sqrt(move2);
+    const bound = move - coincide;
+    if (bound <= 0) continue;
+    const bound2 = bound * bound;
     for (let j = 0; j < n; j++) {
       if (j === i) continue;
-      const other = Math.hypot(newRe[j] - oldRe[i], newIm[j] - oldIm[i]);
-      if (other + coincide < move) return false;
+      const er = newRe[j] - ore;
+      const ei = newIm[j] - oim;
+      if (er * er + ei * ei < bound2) return false;
     }
   }
   return true;
+}
+
+/** Whether two roots are closer than `tolerance` (a multiple root, to working precision). */
+function hasCluster(re: Float64Array, im: Float64Array, tolerance: number): boolean {
+  const t2 = tolerance * tolerance;
+  for (let i = 1; i < re.length; i++) {
+    for (let j = 0; j < i; j++) {
+      const dr = re[i] - re[j];
+      const di = im[i] - im[j];
+      if (dr * dr + di * di < t2) return true;
+    }
+  }
+  return false;
 }
 
 /** Assigns freshly solved roots to branches, each branch taking the nearest root still free. */

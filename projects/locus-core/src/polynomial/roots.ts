@@ -27,6 +27,7 @@ export type Coefficients = ArrayLike<number>;
 export function refineRoots(p: Coefficients, re: Float64Array, im: Float64Array, maxIterations = 60): Refinement {
   const n = p.length - 1;
   const tolerance = Math.max(8, 4 * n) * Number.EPSILON;
+  separateCoincident(re, im);
   const done = new Uint8Array(n);
   let remaining = n;
   let iterations = 0;
@@ -36,7 +37,8 @@ export function refineRoots(p: Coefficients, re: Float64Array, im: Float64Array,
       if (done[i]) continue;
       const zr = re[i];
       const zi = im[i];
-      const mod = Math.hypot(zr, zi);
+      // Math.hypot is exact but an order of magnitude slower; |z| needs no protection from overflow here
+      const mod = Math.sqrt(zr * zr + zi * zi);
       let ratioRe: number;
       let ratioIm: number;
       if (mod <= 1) {
@@ -51,7 +53,7 @@ export function refineRoots(p: Coefficients, re: Float64Array, im: Float64Array,
           pr = npr;
           bound = bound * mod + Math.abs(p[k]);
         }
-        if (Math.hypot(pr, pi) <= tolerance * bound) {
+        if (pr * pr + pi * pi <= tolerance * tolerance * bound * bound) {
           done[i] = 1;
           remaining--;
           continue;
@@ -80,7 +82,7 @@ export function refineRoots(p: Coefficients, re: Float64Array, im: Float64Array,
           qr = nqr;
           bound = bound * ymod + Math.abs(p[k]);
         }
-        if (Math.hypot(qr, qi) <= tolerance * bound) {
+        if (qr * qr + qi * qi <= tolerance * tolerance * bound * bound) {
           done[i] = 1;
           remaining--;
           continue;
@@ -128,6 +130,24 @@ export function refineRoots(p: Coefficients, re: Float64Array, im: Float64Array,
     }
   }
   return { converged: remaining === 0, iterations };
+}
+
+/**
+ * Nudges approximations that coincide exactly (or to the last few bits) apart: two equal iterates
+ * see no repulsion from each other in the Aberth correction and would converge to the same root.
+ */
+function separateCoincident(re: Float64Array, im: Float64Array): void {
+  const n = re.length;
+  for (let i = 1; i < n; i++) {
+    for (let j = 0; j < i; j++) {
+      const size = Math.max(1e-300, Math.abs(re[j]) + Math.abs(im[j]));
+      if (Math.abs(re[i] - re[j]) + Math.abs(im[i] - im[j]) <= 1e-13 * size || (re[i] === re[j] && im[i] === im[j])) {
+        const nudge = 1e-8 * Math.max(size, 1e-8);
+        re[i] += nudge * Math.cos(0.7 + i);
+        im[i] += nudge * Math.sin(0.7 + i);
+      }
+    }
+  }
 }
 
 /**

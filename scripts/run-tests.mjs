@@ -1,0 +1,25 @@
+// Runs every test suite of the repository and ends with one plain line: "N passed, N failed".
+// Suites: Vitest (core unit specs beside their files, cross-project reference, property and package
+// checks under tests/). Exit code 0 only when something ran and nothing failed.
+import { spawnSync } from 'node:child_process';
+import { mkdirSync, readFileSync, rmSync } from 'node:fs';
+
+mkdirSync('test-artifacts', { recursive: true });
+const report = 'test-artifacts/vitest-report.json';
+rmSync(report, { force: true });
+const run = spawnSync('npx', ['vitest', 'run', '--reporter=default', '--reporter=json', `--outputFile=${report}`], { stdio: 'inherit' });
+
+let passed = 0;
+let failed = 0;
+try {
+  const json = JSON.parse(readFileSync(report, 'utf8'));
+  passed = json.numPassedTests;
+  failed = json.numFailedTests + (json.numRuntimeErrorTestSuites ?? 0);
+  for (const file of json.testResults ?? []) if (file.status === 'failed' && (file.assertionResults ?? []).length === 0) failed++;
+} catch (error) {
+  console.error(`could not read the test report (${error.message}); counting the run as failed`);
+  failed = Math.max(failed, 1);
+}
+if (run.status !== 0 && failed === 0) failed = 1;
+console.log(`${passed} passed, ${failed} failed`);
+process.exit(failed === 0 && passed > 0 ? 0 : 1);
