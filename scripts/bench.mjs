@@ -59,7 +59,7 @@ for (const n of [4, 8, 12, 20]) {
   const poles = roots(denominator);
   const zeros = roots(numerator);
   const region = regionOf([...poles, ...zeros], 's');
-  const gainScale = gainScaleOf(numerator, denominator, region);
+  const gainScale = gainScaleOf(numerator, denominator, region, poles);
   const end = gainScale * 1e4;
   const options = { scale: region.scale, center: region.center, gainScale };
   const once = trace(numerator, denominator, poles, end, [], options);

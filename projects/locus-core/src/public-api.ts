@@ -31,7 +31,8 @@ export { evaluate, evaluateComplex, scaledResidual } from './polynomial/evaluate
 export { fromRoots } from './polynomial/from-roots';
 export { routh } from './stability/routh';
 export { jury } from './stability/jury';
-export { bilinear } from './stability/bilinear';
+export { bilinear, bilinearStability } from './stability/bilinear';
+export { stabilityOf, type StabilityTest } from './stability/is-stable';
 export { pade } from './plant/pade';
 export { zeroOrderHoldEquivalent } from './plant/discretize';
 export { trace, type Trace, type TraceOptions } from './locus/track';

@@ -9,7 +9,7 @@ import { normalizePlant } from '../plant/normalize';
 import { roots } from '../polynomial/roots';
 import { poleFigures } from '../response/pole-figures';
 import type { DesignRequest, DesignResult, GainRange } from '../types/results';
-import { branchSignChanges, sampledChanges } from './gain-boundaries';
+import { branchSignChanges, sampledChanges } from '../locus/gain-boundaries';
 import { judgedPoles, meetsRegion, targetRegion } from './targets';
 
 /** Most damping lines one request may ask for. */

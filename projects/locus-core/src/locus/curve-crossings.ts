@@ -35,11 +35,12 @@ export function curveCrossings(numerator: Polynomial, denominator: Polynomial, c
     return [];
   }
   for (const r of roots(condition)) {
-    if (Math.abs(r.im) <= 1e-5 * Math.max(1, Math.abs(r.re))) candidates.push(r.re);
+    // generous: the condition polynomial is worse conditioned than D + K·N; Newton on D + K·N decides
+    if (Math.abs(r.im) <= 1e-3 * Math.max(1, Math.abs(r.re))) candidates.push(r.re);
   }
   for (const t0 of candidates) {
     if (curve.isRay && t0 < -1e-9) continue;
-    const polished = polish(numerator, denominator, curve, t0);
+    const polished = polishCrossing(numerator, denominator, curve, t0);
     if (polished === null) continue;
     if (curve.isRay && polished.t < 0) continue;
     if (found.some((f) => Math.abs(f.t - polished.t) <= 1e-9 * Math.max(1, Math.abs(f.t)) && Math.abs(f.gain - polished.gain) <= 1e-9 * Math.max(1, Math.abs(f.gain)))) continue;
@@ -59,7 +60,11 @@ export function curveCrossings(numerator: Polynomial, denominator: Polynomial, c
   return found.sort((a, b) => a.gain - b.gain || a.t - b.t);
 }
 
-function polish(numerator: Polynomial, denominator: Polynomial, curve: Curve, t0: number): CurveCrossing | null {
+/**
+ * Newton's method on D(x(t)) + K·N(x(t)) = 0 in the two real unknowns t and K, from the parameter t0:
+ * the crossing it converges to (residual at the backward-error level), or `null`.
+ */
+export function polishCrossing(numerator: Polynomial, denominator: Polynomial, curve: Curve, t0: number): CurveCrossing | null {
   let t = t0;
   let x = pointAt(curve, t);
   let dv = evaluateWithDerivative(denominator, x);

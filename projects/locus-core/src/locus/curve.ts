@@ -74,3 +74,14 @@ export function slopeAt(curve: Curve, t: number): Complex {
   const d = sr * sr + si * si;
   return { re: (nr * sr + ni * si) / d, im: (ni * sr - nr * si) / d };
 }
+
+/** The curve parameter t of a point on (or near) the curve: the real part of (δx − β)/(α − γx). */
+export function parameterOf(curve: Curve, x: Complex): number {
+  const { alpha, beta, gamma, delta } = curve;
+  const nr = delta.re * x.re - delta.im * x.im - beta.re;
+  const ni = delta.re * x.im + delta.im * x.re - beta.im;
+  const dr = alpha.re - (gamma.re * x.re - gamma.im * x.im);
+  const di = alpha.im - (gamma.re * x.im + gamma.im * x.re);
+  const d = dr * dr + di * di;
+  return (nr * dr + ni * di) / d;
+}

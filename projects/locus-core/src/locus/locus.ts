@@ -9,6 +9,8 @@ import { departureAndArrivalAngles } from './angles';
 import { asymptotes } from './asymptotes';
 import { breakPoints } from './break-points';
 import { automaticEndGain } from './gain-span';
+import { conditioningWarnings } from './conditioning';
+import { missedCrossings } from './missed-crossings';
 import { gainScaleOf, regionOf } from './region';
 import { boundaryCrossings, illPosedGain, positiveStableRanges, stableRanges } from './stable-ranges';
 import { trace, type Trace } from './track';
@@ -33,9 +35,9 @@ export function locus(request: LocusRequest): LocusResult {
   const featurePoints: Complex[] = [...poles, ...zeros, ...rawBreaks.map((b) => b.point), ...allCrossings.map((c) => c.point)];
   if (asymptote) featurePoints.push({ re: asymptote.centroid, im: 0 });
   const region = regionOf(featurePoints, domain);
-  const gainScale = gainScaleOf(numerator, denominator, region);
+  const gainScale = gainScaleOf(numerator, denominator, region, poles);
   const negligible = 1e-12 * gainScale;
-  const crossings = allCrossings.filter((c) => Math.abs(c.gain) > negligible);
+  let crossings = allCrossings.filter((c) => Math.abs(c.gain) > negligible);
   // a break point at (numerically) zero gain is a multiple open-loop pole: its gain is exactly 0
   const breaks = rawBreaks.map((b) => (Math.abs(b.gain) <= negligible ? { point: b.point, gain: 0 } : b));
   const featureGains = [...breaks.map((b) => b.gain), ...crossings.map((c) => c.gain)].filter((g) => g !== 0);
@@ -60,8 +62,21 @@ export function locus(request: LocusRequest): LocusResult {
   const traceOptions = { scale: region.scale, center: region.center, gainScale };
   const positive = trace(numerator, denominator, poles, maxGain, [...featureGains.filter((g) => g > 0), ...(minGain > 0 ? [minGain] : [])], traceOptions);
   const negative = traceNegative ? trace(numerator, denominator, poles, minGain, featureGains.filter((g) => g < 0), traceOptions) : null;
+  warnings.push(...conditioningWarnings(denominator, poles, region.scale));
+  if (positive.isCoarse || negative?.isCoarse) {
+    warnings.push({ code: 'coarse-tracking', message: 'The poles move too erratically to follow step by step within the work budget (a badly conditioned loop); part of the path was covered by independent solves at coarse gain steps, so branch identity there is by nearest distance.' });
+  }
   if (positive.fallbacks + (negative?.fallbacks ?? 0) > 0) {
     warnings.push({ code: 'tracking-fallback', message: `The tracker fell back to a cold solve at ${positive.fallbacks + (negative?.fallbacks ?? 0)} gain step(s) (clustered roots); branch identity there is by nearest distance.` });
+  }
+
+  const missed = [positive, ...(negative ? [negative] : [])].flatMap((path) => missedCrossings(numerator, denominator, domain, path, crossings));
+  if (missed.length > 0) {
+    crossings = [...crossings, ...missed].sort((a, b) => a.gain - b.gain);
+    warnings.push({
+      code: 'crossing-found-by-tracking',
+      message: `${missed.length / 2} stability-boundary crossing(s) were found by following the poles rather than by the algebraic search (a very high-order or badly scaled loop); their gains are polished but deserve a second look.`,
+    });
   }
 
   const low = Math.min(minGain, 0);

@@ -30,13 +30,31 @@ export function regionOf(points: readonly Complex[], domain: Domain): Region {
 }
 
 /**
- * A gain scale K₀ for the loop: |D(x)/N(x)| at a point one region size above the centre, i.e. the gain
- * at which the loop gain magnitude is 1 there. Falls back to 1 when that is not a positive finite number.
+ * A gain scale K₀ for the loop: the smallest gain that moves an open-loop pole by about 5 % of the
+ * region size — min over poles p and a few directions of |D(x)/N(x)| at x = p + 0.05·size·e^{jθ}
+ * (near a pole, D(x) + K·N(x) = 0 puts a root at x exactly when K = −D(x)/N(x)). Below K₀ the path is
+ * traced linearly in K, above it logarithmically. Falls back to |D/N| one region size above the centre,
+ * and to 1, when those are not positive finite numbers.
  */
-export function gainScaleOf(numerator: Polynomial, denominator: Polynomial, region: Region): number {
-  const x = { re: region.center, im: region.scale };
+export function gainScaleOf(numerator: Polynomial, denominator: Polynomial, region: Region, poles: readonly Complex[] = []): number {
+  const radius = 0.05 * region.scale;
+  let best = Infinity;
+  for (const p of poles) {
+    if (p.im < 0) continue;
+    for (const theta of [0.3, 1.9, 3.5, 5.1]) {
+      const x = { re: p.re + radius * Math.cos(theta), im: p.im + radius * Math.sin(theta) };
+      const k = ratio(numerator, denominator, x);
+      if (k > 0 && k < best) best = k;
+    }
+  }
+  if (Number.isFinite(best)) return best;
+  const k = ratio(numerator, denominator, { re: region.center, im: region.scale });
+  return k > 0 && Number.isFinite(k) ? k : 1;
+}
+
+function ratio(numerator: Polynomial, denominator: Polynomial, x: Complex): number {
   const d = evaluateComplex(denominator, x);
   const n = evaluateComplex(numerator, x);
   const k = Math.hypot(d.re, d.im) / Math.hypot(n.re, n.im);
-  return Number.isFinite(k) && k > 0 ? k : 1;
+  return Number.isFinite(k) ? k : NaN;
 }

@@ -32,7 +32,7 @@ export function illPosedGain(numerator: Polynomial, denominator: Polynomial): nu
 /**
  * The exact set of gains of one sign for which D + K·N is stable, as open intervals. Boundaries are
  * the boundary-crossing gains (and the ill-posed gain); each interval between them is certified at an
- * interior gain by the Routh–Hurwitz (s) or Jury (z) test, and the verdict is checked against the
+ * interior gain by the exact Routh–Hurwitz test (s) or the exact bilinear map and Routh–Hurwitz (z), and the verdict is checked against the
  * computed roots there (a disagreement is reported as a warning, never hidden).
  * For `sign = −1` the ranges are negative gains, `from` < `to` ≤ 0, with `from: −Infinity` written as `null`.
  */
@@ -43,7 +43,7 @@ export function stableRanges(
   crossings: readonly CurveCrossing[],
   sign: 1 | -1,
   warnings: Warning[],
-): { from: number | null; to: number | null; checkedAt: number; certifiedBy: 'routh-hurwitz' | 'jury' }[] {
+): { from: number | null; to: number | null; checkedAt: number; certifiedBy: 'routh-hurwitz' | 'bilinear-routh-hurwitz' }[] {
   const edges: number[] = [];
   for (const c of crossings) if (c.gain * sign > 0) edges.push(Math.abs(c.gain));
   const singular = illPosedGain(numerator, denominator);
@@ -51,7 +51,7 @@ export function stableRanges(
   edges.sort((a, b) => a - b);
   const unique = edges.filter((e, i) => i === 0 || e - edges[i - 1] > 4 * Number.EPSILON * e);
   const bounds = [0, ...unique, Infinity];
-  const out: { from: number | null; to: number | null; checkedAt: number; certifiedBy: 'routh-hurwitz' | 'jury' }[] = [];
+  const out: { from: number | null; to: number | null; checkedAt: number; certifiedBy: 'routh-hurwitz' | 'bilinear-routh-hurwitz' }[] = [];
   for (let i = 0; i + 1 < bounds.length; i++) {
     const a = bounds[i];
     const b = bounds[i + 1];

@@ -9,6 +9,8 @@ export interface Trace {
   readonly im: Float64Array[];
   /** Steps at which tracking had to fall back to a cold solve. */
   readonly fallbacks: number;
+  /** Whether the work budget ran out and the rest of the path was covered by cold solves at coarse steps. */
+  readonly isCoarse: boolean;
 }
 
 /** How finely to trace. */
@@ -70,7 +72,17 @@ export function trace(
   const newRe = new Float64Array(n);
   const newIm = new Float64Array(n);
   let stopIndex = 0;
+  let halvings = 0;
+  let attempts = 0;
+  let exhausted = false;
+  let planned = h;
+  let force = false;
   while (stopIndex < stops.length && n > 0) {
+    attempts++;
+    // a bounded amount of work: a loop whose roots are hypersensitive (very high order, spread roots)
+    // could otherwise halve its steps without end
+    if (attempts > MAX_ATTEMPTS) exhausted = true;
+    if (halvings === 0) planned = h;
     const stop = stops[stopIndex];
     const landing = u + h >= stop.u - 1e-12 * Math.max(1, stop.u);
     const uNext = landing ? stop.u : u + h;
@@ -90,21 +102,29 @@ export function trace(
       // roots fan out like K^(1/q), which a warm start from one point cannot follow; solve cold and
       // pair by distance — any pairing is continuous, the branches share the point they leave
       pairNearest(curRe, curIm, roots(Array.from(c)), newRe, newIm);
-      accepted = isFaithful(curRe, curIm, newRe, newIm, options.scale, options.center, moveFraction) || step <= 1e-10 * Math.max(1, uNext);
+      accepted = isFaithful(curRe, curIm, newRe, newIm, options.scale, options.center, moveFraction) || force || exhausted;
     } else {
       refinement = refineRoots(c, newRe, newIm, 40);
       accepted = refinement.converged && isFaithful(curRe, curIm, newRe, newIm, options.scale, options.center, moveFraction);
     }
-    if (!accepted && step <= 1e-10 * Math.max(1, uNext)) {
+    if (!accepted && (force || exhausted)) {
       // the path cannot be resolved any finer: solve cold and pair by nearest distance
       fallbacks++;
       pairNearest(curRe, curIm, roots(Array.from(c)), newRe, newIm);
       accepted = true;
     }
     if (!accepted) {
-      h = step / 2;
+      halvings++;
+      if (halvings >= MAX_HALVINGS) {
+        // halving did not help (the roots are hypersensitive here): take the planned step with a
+        // cold solve instead of crawling
+        force = true;
+        h = planned;
+      } else h = step / 2;
       continue;
     }
+    halvings = 0;
+    force = false;
     prevRe = curRe;
     prevIm = curIm;
     prevH = step;
@@ -116,11 +136,16 @@ export function trace(
     outIm.push(curIm);
     u = uNext;
     if (landing) stopIndex++;
-    h = Math.min(hMax, refinement.iterations <= 4 ? step * 1.6 : step * 1.15);
+    h = Math.max(1e-9, Math.min(hMax, refinement.iterations <= 4 ? step * 1.6 : step * 1.15));
     if (landing && stopIndex < stops.length) h = Math.min(h, 0.01 + (stops[stopIndex].u - u) / 4);
   }
-  return { gains, re: outRe, im: outIm, fallbacks };
+  return { gains, re: outRe, im: outIm, fallbacks, isCoarse: exhausted };
 }
+
+/** Halvings of one step before it is forced through a cold solve. */
+const MAX_HALVINGS = 16;
+/** Step attempts in one trace before the rest of the path is covered by cold solves at the planned steps. */
+const MAX_ATTEMPTS = 6000;
 
 /**
  * Whether the step kept every branch on its own root: each new root moved at most the allowed

@@ -4,7 +4,7 @@ import { evaluateComplex } from '../polynomial/evaluate';
 import { fromRoots } from '../polynomial/from-roots';
 import type { Polynomial } from '../polynomial/polynomial';
 import { roots } from '../polynomial/roots';
-import { realize } from './state-space';
+import { realizeCascade } from './cascade';
 import { heldStep, multiplyVector } from './zero-order-hold';
 
 /** A z-domain transfer function, highest power first. */
@@ -34,8 +34,9 @@ export function zeroOrderHoldEquivalent(
   let theta = delay - wholeSamples * sampleTime;
   if (theta < 1e-12 * sampleTime) theta = 0;
   const extra = theta > 0 ? 1 : 0;
-  const model = realize(numerator, denominator);
-  const zPoles = roots(denominator).map((p) => exp({ re: p.re * sampleTime, im: p.im * sampleTime }));
+  const sPoles = roots(denominator);
+  const model = realizeCascade(numerator[0] / denominator[0], roots(numerator), sPoles);
+  const zPoles = sPoles.map((p) => exp({ re: p.re * sampleTime, im: p.im * sampleTime }));
   const denZ = fromRoots(zPoles);
   const first = heldStep(model, sampleTime - theta);
   const gamma0 = first.gamma;

@@ -20,7 +20,7 @@ export function heldStep(model: StateSpace, h: number): HeldStep {
   const block: number[][] = [];
   for (let i = 0; i < n; i++) block.push([...model.a[i].map((v) => v * h), model.b[i] * h]);
   block.push(new Array<number>(n + 1).fill(0));
-  const e = (expm(matrix(block)).toArray() as number[][]);
+  const e = exponential(block);
   return {
     phi: e.slice(0, n).map((row) => row.slice(0, n)),
     gamma: e.slice(0, n).map((row) => row[n]),
@@ -30,4 +30,39 @@ export function heldStep(model: StateSpace, h: number): HeldStep {
 /** Matrix–vector product. */
 export function multiplyVector(m: readonly (readonly number[])[], v: readonly number[]): number[] {
   return m.map((row) => row.reduce((acc, x, j) => acc + x * v[j], 0));
+}
+
+/**
+ * Matrix exponential by scaling and squaring around mathjs' Padé-based `expm`: the matrix is first
+ * divided by 2^k so that its 1-norm is at most ½ (where mathjs' parameter search always succeeds), and
+ * the result squared k times.
+ */
+export function exponential(m: number[][]): number[][] {
+  let norm = 0;
+  for (let j = 0; j < m.length; j++) {
+    let column = 0;
+    for (let i = 0; i < m.length; i++) column += Math.abs(m[i][j]);
+    norm = Math.max(norm, column);
+  }
+  const k = norm > 0.5 ? Math.ceil(Math.log2(norm / 0.5)) : 0;
+  const scaled = k > 0 ? m.map((row) => row.map((v) => v / 2 ** k)) : m;
+  let e = expm(matrix(scaled)).toArray() as number[][];
+  for (let i = 0; i < k; i++) e = multiplyMatrices(e, e);
+  return e;
+}
+
+function multiplyMatrices(x: readonly (readonly number[])[], y: readonly (readonly number[])[]): number[][] {
+  const n = x.length;
+  const out: number[][] = [];
+  for (let i = 0; i < n; i++) {
+    const row = new Array<number>(n).fill(0);
+    for (let l = 0; l < n; l++) {
+      const v = x[i][l];
+      if (v === 0) continue;
+      const yl = y[l];
+      for (let j = 0; j < n; j++) row[j] += v * yl[j];
+    }
+    out.push(row);
+  }
+  return out;
 }

@@ -1,5 +1,6 @@
 import { CAUTION } from '../caution';
 import { ValidationError } from '../errors';
+import { conditioningWarnings } from '../locus/conditioning';
 import { characteristic } from '../locus/stable-ranges';
 import { normalizePlant } from '../plant/normalize';
 import { evaluate } from '../polynomial/evaluate';
@@ -29,7 +30,9 @@ export function closedLoop(request: ClosedLoopRequest): ClosedLoopResult {
   const warnings: Warning[] = [...plant.warnings];
   const a = characteristic(numerator, denominator, gain);
   if (a[0] === 0) throw ValidationError.at('/gain', 'makes the loop ill-posed (1 + K·G(∞) = 0): no closed-loop transfer function exists at this gain');
-  const poles = roots(a).map((p) => poleFigures(p, domain, sampleTime));
+  const rawPoles = roots(a);
+  const poles = rawPoles.map((p) => poleFigures(p, domain, sampleTime));
+  warnings.push(...conditioningWarnings(a, rawPoles, Math.max(1e-300, ...rawPoles.map((p) => Math.hypot(p.re, p.im)))));
   const verdict = stabilityOf(a, domain);
   const polesSayStable = poles.every((p) => p.isStable);
   if (verdict.isStable !== polesSayStable) {

@@ -1,5 +1,6 @@
 import type { Complex } from '../complex/complex';
-import { realize } from '../plant/state-space';
+import { realizeCascade } from '../plant/cascade';
+import { roots } from '../polynomial/roots';
 import { heldStep, multiplyVector } from '../plant/zero-order-hold';
 import { padTo, type Polynomial } from '../polynomial/polynomial';
 import type { Domain } from '../types/plant';
@@ -9,7 +10,7 @@ export const MAX_STEP_POINTS = 20000;
 
 /**
  * Unit-step response of the closed loop b/a, exact at the samples: for s-loops by the exact
- * discretisation of a state-space realisation over the sample interval (a step input is constant,
+ * discretisation of a cascade state-space realisation over the sample interval (a step input is constant,
  * so a zero-order hold represents it without error), for z-loops by the difference equation itself.
  */
 export function stepSeries(b: Polynomial, a: Polynomial, domain: Domain, sampleTime: number | null, duration: number, points: number): { time: number[]; output: number[] } {
@@ -30,7 +31,7 @@ export function stepSeries(b: Polynomial, a: Polynomial, domain: Domain, sampleT
     }
     return { time, output };
   }
-  const model = realize(b, a);
+  const model = realizeCascade(b[0] / a[0], roots(b), roots(a));
   const h = duration / (points - 1);
   const { phi, gamma } = heldStep(model, h);
   let x = new Array<number>(model.a.length).fill(0);

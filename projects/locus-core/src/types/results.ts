@@ -7,8 +7,8 @@ export interface GainRange {
   readonly to: number | null;
   /** The interior gain at which the interval was certified. */
   readonly checkedAt?: number;
-  /** The exact test that certified it: `routh-hurwitz` (s) or `jury` (z). */
-  readonly certifiedBy?: 'routh-hurwitz' | 'jury';
+  /** The exact test that certified it: `routh-hurwitz` (s) or `bilinear-routh-hurwitz` (z), both in exact integer arithmetic. */
+  readonly certifiedBy?: 'routh-hurwitz' | 'bilinear-routh-hurwitz';
 }
 
 /** Open interval of negative gain K (positive feedback); `from: null` means unbounded below. */
@@ -16,7 +16,7 @@ export interface NegativeGainRange {
   readonly from: number | null;
   readonly to: number;
   readonly checkedAt?: number;
-  readonly certifiedBy?: 'routh-hurwitz' | 'jury';
+  readonly certifiedBy?: 'routh-hurwitz' | 'bilinear-routh-hurwitz';
 }
 
 /** One point of a branch: the closed-loop pole at one gain. */

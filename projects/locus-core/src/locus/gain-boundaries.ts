@@ -1,5 +1,5 @@
 import type { Complex } from '../complex/complex';
-import { characteristic } from '../locus/stable-ranges';
+import { characteristic } from './stable-ranges';
 import type { Polynomial } from '../polynomial/polynomial';
 import { roots } from '../polynomial/roots';
 
