@@ -22,15 +22,3 @@ export class ValidationError extends Error {
     return new ValidationError([{ pointer, detail }]);
   }
 }
-
-/** Thrown when a well-formed request cannot be computed to the promised accuracy. */
-export class ComputationError extends Error {
-  override readonly name = 'ComputationError';
-  /** A stable machine-readable reason, e.g. `root-tracking-failed`. */
-  readonly code: string;
-
-  constructor(code: string, message: string) {
-    super(message);
-    this.code = code;
-  }
-}

@@ -31,45 +31,86 @@ export function hasCompleteConjugatePairs(values: readonly Complex[], tolerance 
 }
 
 /**
- * Makes a list of roots of a real polynomial exactly conjugate-symmetric: values with a tiny imaginary
- * part become real, each complex value is paired with the value nearest its conjugate and both are
- * averaged, and a value with no partner nearer its conjugate than it is to the real axis becomes real.
+ * Makes a list of roots of a real polynomial exactly conjugate-symmetric. Values whose imaginary part
+ * is within `realTolerance` of their modulus become real; the others are split into upper and lower
+ * half-plane values and matched globally, nearest conjugate first. In each matched pair one member is
+ * kept and the other replaced by its exact conjugate — the member with the smaller scaled residual
+ * when the polynomial is given (for a real p, |p(x̄)| = |p(x)|, so the pair keeps that backward error),
+ * otherwise both are averaged. A value left without a partner keeps its place (it cannot be mirrored
+ * without losing a root).
  */
-export function symmetrize(values: readonly Complex[], realTolerance = 1e-10): Complex[] {
+export function symmetrize(values: readonly Complex[], realTolerance = 1e-10, polynomial?: readonly number[]): Complex[] {
   const out: Complex[] = values.map((v) => ({ re: v.re, im: v.im }));
-  const done = new Array<boolean>(out.length).fill(false);
-  for (let i = 0; i < out.length; i++) {
-    if (done[i]) continue;
-    const v = out[i];
+  const upper: number[] = [];
+  const lower: number[] = [];
+  out.forEach((v, i) => {
     const scale = Math.max(1e-300, Math.hypot(v.re, v.im));
-    if (Math.abs(v.im) <= realTolerance * scale) {
-      out[i] = { re: v.re, im: 0 };
-      done[i] = true;
-      continue;
-    }
-    let best = -1;
-    let bestDistance = Infinity;
-    for (let j = 0; j < out.length; j++) {
-      if (j === i || done[j]) continue;
-      const d = Math.hypot(out[j].re - v.re, out[j].im + v.im);
-      if (d < bestDistance) {
-        bestDistance = d;
-        best = j;
-      }
-    }
-    if (best < 0 || bestDistance >= Math.abs(v.im)) {
-      // no partner closer to the conjugate than the value is to the real axis: a real root with
-      // rounding noise in its imaginary part
-      out[i] = { re: v.re, im: 0 };
-      done[i] = true;
-      continue;
-    }
-    const re = (v.re + out[best].re) / 2;
-    const im = (Math.abs(v.im) + Math.abs(out[best].im)) / 2;
-    out[i] = { re, im: v.im >= 0 ? im : -im };
-    out[best] = { re, im: v.im >= 0 ? -im : im };
-    done[i] = true;
-    done[best] = true;
+    if (Math.abs(v.im) <= realTolerance * scale) out[i] = { re: v.re, im: 0 };
+    else (v.im > 0 ? upper : lower).push(i);
+  });
+  const pairs: { u: number; l: number; d: number }[] = [];
+  for (const u of upper) for (const l of lower) pairs.push({ u, l, d: Math.hypot(out[u].re - out[l].re, out[u].im + out[l].im) });
+  pairs.sort((a, b) => a.d - b.d);
+  const used = new Set<number>();
+  for (const { u, l, d } of pairs) {
+    if (used.has(u) || used.has(l)) continue;
+    // conjugates lie closer to each other's mirror image than to the real axis; two near-real
+    // roots with rounding noise of opposite sign do not
+    if (d >= Math.max(out[u].im, -out[l].im)) continue;
+    used.add(u);
+    used.add(l);
+    const a = out[u];
+    const b = out[l];
+    let keep: Complex;
+    if (polynomial) keep = residual(polynomial, a) <= residual(polynomial, b) ? a : { re: b.re, im: -b.im };
+    else keep = { re: (a.re + b.re) / 2, im: (a.im - b.im) / 2 };
+    out[u] = { re: keep.re, im: keep.im };
+    out[l] = { re: keep.re, im: -keep.im };
+  }
+  // a value left without a partner is a real root blurred by rounding or by the polynomial's
+  // conditioning: with the polynomial, Newton's method along the real axis settles it (kept only if
+  // its residual is no worse); without, only rounding-level noise is dropped
+  for (const i of [...upper, ...lower]) {
+    if (used.has(i)) continue;
+    const v = out[i];
+    if (polynomial) {
+      const real = realNewton(polynomial, v.re);
+      const isNear = real !== null && Math.abs(real - v.re) <= 4 * Math.abs(v.im);
+      if (isNear && residual(polynomial, { re: real, im: 0 }) <= Math.max(residual(polynomial, v) * 4, 1e-300)) out[i] = { re: real, im: 0 };
+    } else if (Math.abs(v.im) <= 1e-6 * Math.hypot(v.re, v.im)) out[i] = { re: v.re, im: 0 };
   }
   return out;
+}
+
+/** Scaled residual |p(x)| / Σ|a_k||x|^k (comparable between points of different size). */
+function residual(p: readonly number[], x: Complex): number {
+  let re = 0;
+  let im = 0;
+  let bound = 0;
+  const modulus = Math.hypot(x.re, x.im);
+  for (const c of p) {
+    const r = re * x.re - im * x.im + c;
+    im = re * x.im + im * x.re;
+    re = r;
+    bound = bound * modulus + Math.abs(c);
+  }
+  return bound === 0 ? 0 : Math.hypot(re, im) / bound;
+}
+
+function realNewton(p: readonly number[], start: number): number | null {
+  let x = start;
+  for (let i = 0; i < 40; i++) {
+    let value = 0;
+    let slope = 0;
+    for (const c of p) {
+      slope = slope * x + value;
+      value = value * x + c;
+    }
+    if (slope === 0) return null;
+    const step = value / slope;
+    x -= step;
+    if (!Number.isFinite(x)) return null;
+    if (Math.abs(step) <= 2 * Number.EPSILON * Math.max(1, Math.abs(x))) break;
+  }
+  return x;
 }

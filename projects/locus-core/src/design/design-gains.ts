@@ -24,7 +24,7 @@ export const MAX_DAMPING_LINES = 24;
  * locus, refined by bisection. Each resulting range is checked at an interior gain.
  */
 export function designGains(request: DesignRequest): DesignResult {
-  if (typeof request !== 'object' || request === null) throw ValidationError.at('', 'the request must be an object with a "plant"');
+  if (typeof request !== 'object' || request === null || Array.isArray(request)) throw ValidationError.at('', 'the request must be an object with a "plant"');
   if (!('plant' in request)) throw ValidationError.at('/plant', 'is required');
   const region = targetRegion(request.targets);
   const lines = readDampingLines(request.dampingLines);

@@ -21,7 +21,7 @@ export interface TargetRegion {
  */
 export function targetRegion(targets: DesignTargets | undefined): TargetRegion {
   if (targets === undefined) return { minDampingRatio: null, minDecayRate: null, naturalFrequency: { min: null, max: null } };
-  if (typeof targets !== 'object' || targets === null) throw ValidationError.at('/targets', 'must be an object');
+  if (typeof targets !== 'object' || targets === null || Array.isArray(targets)) throw ValidationError.at('/targets', 'must be an object');
   const { minDampingRatio, maxSettlingTime, maxOvershootPct, naturalFrequency } = targets;
   if (minDampingRatio !== undefined && !(typeof minDampingRatio === 'number' && minDampingRatio > 0 && minDampingRatio < 1)) {
     throw ValidationError.at('/targets/minDampingRatio', 'must be a number between 0 and 1 (exclusive)');
@@ -34,7 +34,7 @@ export function targetRegion(targets: DesignTargets | undefined): TargetRegion {
   }
   let band = { min: null as number | null, max: null as number | null };
   if (naturalFrequency !== undefined) {
-    if (typeof naturalFrequency !== 'object' || naturalFrequency === null) throw ValidationError.at('/targets/naturalFrequency', 'must be an object { "min": rad/s, "max": rad/s }');
+    if (typeof naturalFrequency !== 'object' || naturalFrequency === null || Array.isArray(naturalFrequency)) throw ValidationError.at('/targets/naturalFrequency', 'must be an object { "min": rad/s, "max": rad/s }');
     const { min, max } = naturalFrequency;
     if (min !== undefined && !(typeof min === 'number' && Number.isFinite(min) && min >= 0)) throw ValidationError.at('/targets/naturalFrequency/min', 'must be a number of rad/s, zero or more');
     if (max !== undefined && !(typeof max === 'number' && Number.isFinite(max) && max > 0)) throw ValidationError.at('/targets/naturalFrequency/max', 'must be a positive number of rad/s');

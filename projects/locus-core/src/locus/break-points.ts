@@ -23,9 +23,12 @@ export function breakPoints(numerator: Polynomial, denominator: Polynomial): Bre
   const trimmed = condition.slice(start);
   if (trimmed.length < 2) return [];
   const found: BreakPoint[] = [];
+  const zeros = roots(numerator);
   for (const r of roots(trimmed)) {
     if (r.im < 0) continue; // one of each conjugate pair; its mirror is added below
-    const x = polishRoot(trimmed, r);
+    const x = nearReal(trimmed, r) ?? polishRoot(trimmed, r);
+    // at a zero of N the gain is infinite, unless the zero cancels a pole; either way no break point
+    if (zeros.some((z) => Math.hypot(z.re - x.re, z.im - x.im) <= 1e-5 * Math.max(1, Math.hypot(x.re, x.im)))) continue;
     const nv = evaluateComplex(numerator, x);
     const dv = evaluateComplex(denominator, x);
     const modulus = Math.hypot(x.re, x.im);
@@ -35,7 +38,8 @@ export function breakPoints(numerator: Polynomial, denominator: Polynomial): Bre
     const gainIm = -(dv.im * nv.re - dv.re * nv.im) / nm;
     if (Math.abs(gainIm) > 1e-7 * Math.max(Math.abs(gain), 1e-300)) continue;
     const point = Math.abs(x.im) <= 1e-12 * Math.max(1, modulus) ? { re: x.re, im: 0 } : x;
-    if (found.some((f) => Math.hypot(f.point.re - point.re, f.point.im - point.im) <= 1e-9 * Math.max(1, modulus))) continue;
+    // a point where q branches meet is a (q − 1)-fold root of the condition, found as a small cluster
+    if (found.some((f) => Math.hypot(f.point.re - point.re, f.point.im - point.im) <= 1e-5 * Math.max(1, modulus) && Math.abs(f.gain - gain) <= 1e-5 * Math.max(1e-300, Math.abs(gain)))) continue;
     found.push({ point, gain });
     if (point.im !== 0) found.push({ point: { re: point.re, im: -point.im }, gain });
   }
@@ -58,4 +62,26 @@ function polishRoot(p: Polynomial, start: Complex): Complex {
     x = next;
   }
   return x;
+}
+
+/**
+ * A root of a real polynomial found with a small imaginary part may be a real root blurred by the
+ * conditioning of the polynomial: Newton's method along the real axis from its real part settles it.
+ * Returns the real root when that converges close by, else `null`.
+ */
+function nearReal(p: Polynomial, start: Complex): Complex | null {
+  const size = Math.max(1, Math.hypot(start.re, start.im));
+  if (Math.abs(start.im) > 1e-4 * size) return null;
+  let x = start.re;
+  for (let i = 0; i < 30; i++) {
+    const { value, slope } = evaluateWithDerivative(p, { re: x, im: 0 });
+    if (slope.re === 0) return null;
+    const step = value.re / slope.re;
+    x -= step;
+    if (!Number.isFinite(x)) return null;
+    if (Math.abs(step) <= 4 * Number.EPSILON * Math.max(1, Math.abs(x))) break;
+  }
+  const residual = Math.abs(evaluateComplex(p, { re: x, im: 0 }).re);
+  if (Math.abs(x - start.re) > 1e-3 * size || residual > 1e-10 * evaluateAbs(p, Math.abs(x))) return null;
+  return { re: x, im: 0 };
 }

@@ -6,7 +6,8 @@ import { roots } from '../polynomial/roots';
 /**
  * Refines a gain at which a function of the closed-loop poles changes value, given two gains that
  * bracket the change, by bisection with a fresh root solve at each midpoint until the bracket is at
- * the resolution of double precision. Returns the midpoint of the final bracket.
+ * the resolution of double precision. Returns the midpoint of the final bracket, or `null` when fresh
+ * solves at the two ends do not confirm a change (the ends sit on the boundary itself).
  */
 export function refineChange(
   numerator: Polynomial,
@@ -14,10 +15,11 @@ export function refineChange(
   low: number,
   high: number,
   judge: (poles: Complex[]) => number | boolean,
-): number {
+): number | null {
   let a = low;
   let b = high;
   const atA = judge(roots(characteristic(numerator, denominator, a)));
+  if (judge(roots(characteristic(numerator, denominator, b))) === atA) return null;
   for (let i = 0; i < 200 && b - a > 4 * Number.EPSILON * Math.max(Math.abs(a), Math.abs(b)); i++) {
     const mid = (a + b) / 2;
     if (mid <= a || mid >= b) break;
@@ -28,9 +30,28 @@ export function refineChange(
 }
 
 /**
- * Gains where `judge` changes value between neighbouring samples of a traced locus, each refined by
- * `refineChange`. `gains` ascend; `polesAt(k)` gives the closed-loop poles at sample k.
+ * Neighbouring samples of a traced locus between which `judge` changes value, as [low, high] gain
+ * brackets. `gains` ascend; `polesAt(k)` gives the closed-loop poles at sample k. K = 0 itself is left
+ * out (open-loop poles may sit on a boundary; it is no boundary of a set of K > 0).
  */
+export function sampledBrackets(
+  gains: readonly number[],
+  polesAt: (k: number) => Complex[],
+  judge: (poles: Complex[]) => number | boolean,
+): [number, number][] {
+  const out: [number, number][] = [];
+  const first = gains[0] === 0 ? 1 : 0;
+  if (first >= gains.length) return out;
+  let previous = judge(polesAt(first));
+  for (let k = first + 1; k < gains.length; k++) {
+    const current = judge(polesAt(k));
+    if (current !== previous) out.push([gains[k - 1], gains[k]]);
+    previous = current;
+  }
+  return out;
+}
+
+/** Gains where `judge` changes value along a traced locus, each refined by `refineChange`. */
 export function sampledChanges(
   numerator: Polynomial,
   denominator: Polynomial,
@@ -39,14 +60,9 @@ export function sampledChanges(
   judge: (poles: Complex[]) => number | boolean,
 ): number[] {
   const out: number[] = [];
-  // K = 0 itself is no boundary of a set of K > 0 (open-loop poles may sit on the stability boundary)
-  const first = gains[0] === 0 ? 1 : 0;
-  if (first >= gains.length) return out;
-  let previous = judge(polesAt(first));
-  for (let k = first + 1; k < gains.length; k++) {
-    const current = judge(polesAt(k));
-    if (current !== previous) out.push(refineChange(numerator, denominator, gains[k - 1], gains[k], judge));
-    previous = current;
+  for (const [low, high] of sampledBrackets(gains, polesAt, judge)) {
+    const gain = refineChange(numerator, denominator, low, high, judge);
+    if (gain !== null) out.push(gain);
   }
   return out;
 }

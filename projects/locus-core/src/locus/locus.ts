@@ -123,13 +123,13 @@ function buildBranches(positive: Trace, negative: Trace | null, minGain: number)
 }
 
 function readOptions(request: LocusRequest): { min?: number; max?: number; includeNegative: boolean } {
-  if (typeof request !== 'object' || request === null) throw ValidationError.at('', 'the request must be an object with a "plant"');
+  if (typeof request !== 'object' || request === null || Array.isArray(request)) throw ValidationError.at('', 'the request must be an object with a "plant"');
   if (!('plant' in request)) throw ValidationError.at('/plant', 'is required');
   const range = request.gainRange;
   let min: number | undefined;
   let max: number | undefined;
   if (range !== undefined) {
-    if (typeof range !== 'object' || range === null) throw ValidationError.at('/gainRange', 'must be an object { "min": number, "max": number }');
+    if (typeof range !== 'object' || range === null || Array.isArray(range)) throw ValidationError.at('/gainRange', 'must be an object { "min": number, "max": number }');
     if (range.min !== undefined && (typeof range.min !== 'number' || !Number.isFinite(range.min))) throw ValidationError.at('/gainRange/min', 'must be a finite number');
     if (range.max !== undefined && (typeof range.max !== 'number' || !Number.isFinite(range.max) || range.max <= 0)) throw ValidationError.at('/gainRange/max', 'must be a positive finite number');
     min = range.min;

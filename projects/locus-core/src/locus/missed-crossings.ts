@@ -4,7 +4,7 @@ import { roots } from '../polynomial/roots';
 import type { Domain } from '../types/plant';
 import { IMAGINARY_AXIS, circle, parameterOf } from './curve';
 import { polishCrossing, type CurveCrossing } from './curve-crossings';
-import { sampledChanges } from './gain-boundaries';
+import { refineChange, sampledBrackets } from './gain-boundaries';
 import { characteristic } from './stable-ranges';
 import type { Trace } from './track';
 
@@ -27,11 +27,18 @@ export function missedCrossings(
   const sign = path.gains[path.gains.length - 1] < 0 ? -1 : 1;
   const polesAt = (k: number): Complex[] => Array.from(path.re[k], (re, i) => ({ re, im: path.im[k][i] }));
   const signedNumerator = sign > 0 ? numerator : numerator.map((c) => -c);
-  const changes = sampledChanges(signedNumerator, denominator, gains, polesAt, isStable).map((g) => sign * g);
   const curve = domain === 's' ? IMAGINARY_AXIS : circle(0, 1);
   const found: CurveCrossing[] = [];
-  for (const gain of changes) {
-    if (known.some((c) => Math.abs(c.gain - gain) <= 1e-6 * Math.abs(gain))) continue;
+  for (const [low, high] of sampledBrackets(gains, polesAt, isStable)) {
+    // a known crossing inside the bracket (ends included, with rounding room) explains the change
+    const explained = known.some((c) => {
+      const g = Math.abs(c.gain) * Math.sign(c.gain) * sign;
+      return g >= low * (1 - 1e-9) && g <= high * (1 + 1e-9);
+    });
+    if (explained) continue;
+    const refined = refineChange(signedNumerator, denominator, low, high, isStable);
+    if (refined === null) continue;
+    const gain = sign * refined;
     const poles = roots(characteristic(numerator, denominator, gain));
     const nearest = poles.reduce((best, p) => (boundaryDistance(p, domain) < boundaryDistance(best, domain) ? p : best), poles[0]);
     const polished = polishCrossing(numerator, denominator, curve, parameterOf(curve, nearest));

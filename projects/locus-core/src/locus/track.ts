@@ -54,7 +54,11 @@ export function trace(
   const stops = [...new Set(waypoints.map((w) => Math.abs(w)))]
     .filter((w) => w > 0 && w < Math.abs(endGain))
     .sort((a, b) => a - b)
-    .map((w) => ({ u: uOf(w), gain: sign * w }));
+    .map((w) => ({ u: uOf(w), gain: sign * w }))
+    // gains that land on the same path position (e.g. the two refined gains of a conjugate crossing
+    // pair, one rounding step apart) are one stop
+    .filter((stop, i, all) => i === 0 || stop.u - all[i - 1].u > 1e-12 * Math.max(1, stop.u));
+  if (stops.length > 0 && uEnd - stops[stops.length - 1].u <= 1e-12 * Math.max(1, uEnd)) stops.pop();
   stops.push({ u: uEnd, gain: endGain });
 
   let curRe = Float64Array.from(startRoots.map((r) => r.re));
@@ -76,12 +80,13 @@ export function trace(
   let attempts = 0;
   let exhausted = false;
   let planned = h;
+  const maxAttempts = Math.max(1000, Math.round(WORK_BUDGET / Math.max(1, n * n)));
   let force = false;
   while (stopIndex < stops.length && n > 0) {
     attempts++;
     // a bounded amount of work: a loop whose roots are hypersensitive (very high order, spread roots)
     // could otherwise halve its steps without end
-    if (attempts > MAX_ATTEMPTS) exhausted = true;
+    if (attempts > maxAttempts) exhausted = true;
     if (halvings === 0) planned = h;
     const stop = stops[stopIndex];
     const landing = u + h >= stop.u - 1e-12 * Math.max(1, stop.u);
@@ -144,8 +149,12 @@ export function trace(
 
 /** Halvings of one step before it is forced through a cold solve. */
 const MAX_HALVINGS = 16;
-/** Step attempts in one trace before the rest of the path is covered by cold solves at the planned steps. */
-const MAX_ATTEMPTS = 6000;
+/**
+ * Work allowed for one trace, in units of n² (one step attempt costs a few sweeps of n² each): about
+ * 40 000 attempts at degree 10, 2 500 at degree 40. Past it, the rest of the path is covered by cold
+ * solves at the planned steps.
+ */
+const WORK_BUDGET = 4e6;
 
 /**
  * Whether the step kept every branch on its own root: each new root moved at most the allowed
@@ -193,21 +202,33 @@ function hasCluster(re: Float64Array, im: Float64Array, tolerance: number): bool
   return false;
 }
 
-/** Assigns freshly solved roots to branches, each branch taking the nearest root still free. */
+/** Assigns freshly solved roots to branches, nearest pairs first (global greedy matching). */
 function pairNearest(oldRe: Float64Array, oldIm: Float64Array, fresh: Complex[], outRe: Float64Array, outIm: Float64Array): void {
   const n = oldRe.length;
-  const free = fresh.slice();
-  const pairs: { i: number; j: number; d: number }[] = [];
-  for (let i = 0; i < n; i++) for (let j = 0; j < free.length; j++) pairs.push({ i, j, d: Math.hypot(free[j].re - oldRe[i], free[j].im - oldIm[i]) });
-  pairs.sort((a, b) => a.d - b.d);
+  const m = fresh.length;
+  const distance = new Float64Array(n * m);
+  const order = new Uint32Array(n * m);
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < m; j++) {
+      const dr = fresh[j].re - oldRe[i];
+      const di = fresh[j].im - oldIm[i];
+      distance[i * m + j] = dr * dr + di * di;
+      order[i * m + j] = i * m + j;
+    }
+  }
+  order.sort((a, b) => distance[a] - distance[b]);
   const branchDone = new Uint8Array(n);
-  const rootDone = new Uint8Array(free.length);
-  for (const p of pairs) {
-    if (branchDone[p.i] || rootDone[p.j]) continue;
-    branchDone[p.i] = 1;
-    rootDone[p.j] = 1;
-    outRe[p.i] = free[p.j].re;
-    outIm[p.i] = free[p.j].im;
+  const rootDone = new Uint8Array(m);
+  let left = Math.min(n, m);
+  for (let k = 0; k < order.length && left > 0; k++) {
+    const i = Math.floor(order[k] / m);
+    const j = order[k] - i * m;
+    if (branchDone[i] || rootDone[j]) continue;
+    branchDone[i] = 1;
+    rootDone[j] = 1;
+    outRe[i] = fresh[j].re;
+    outIm[i] = fresh[j].im;
+    left--;
   }
 }
 

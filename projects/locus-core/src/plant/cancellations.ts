@@ -32,10 +32,13 @@ export function cancellationWarnings(poles: readonly Complex[], zeros: readonly 
             `the remaining poles suggests. Remove the instability in the plant or the compensator instead of cancelling it.`,
         });
       } else {
+        // computed roots of a common simple factor agree to rounding, so "exact" means equal to
+        // working precision (a repeated common factor agrees less well and is reported as near)
+        const exact = gap <= 1e-10 * scale;
         warnings.push({
-          code: gap === 0 ? 'pole-zero-cancellation' : 'near-pole-zero-cancellation',
+          code: exact ? 'pole-zero-cancellation' : 'near-pole-zero-cancellation',
           message:
-            `The open-loop pole at ${where} is ${gap === 0 ? 'cancelled' : 'almost cancelled'} by a zero; the closed loop ` +
+            `The open-loop pole at ${where} is ${exact ? 'cancelled' : 'almost cancelled'} by a zero; the closed loop ` +
             `keeps a pole there at every gain, and a small model error moves it.`,
         });
       }

@@ -56,6 +56,9 @@ export function normalizePlant(plant: unknown, pointer = '/plant'): NormalizedPl
     }
   } else if (common.deadTime > 0 && domain === 's') {
     const approximant = pade(common.deadTime, common.padeOrder);
+    if (![...approximant.numerator, ...approximant.denominator].every(Number.isFinite)) {
+      throw ValidationError.at(`${pointer}/deadTime`, `is too long for an order-${common.padeOrder} Padé approximant in double precision; give it in a larger time unit (e.g. minutes) together with the plant`);
+    }
     numerator = multiply(numerator, approximant.numerator);
     denominator = multiply(denominator, approximant.denominator);
     if (denominator.length - 1 > MAX_DEGREE) {
@@ -70,15 +73,21 @@ export function normalizePlant(plant: unknown, pointer = '/plant'): NormalizedPl
     });
   } else if (common.deadTime > 0 && domain === 'z') {
     const samples = Math.round(common.deadTime / (sampleTime as number));
-    denominator = [...denominator, ...new Array<number>(samples).fill(0)];
-    if (denominator.length - 1 > MAX_DEGREE) {
+    if (samples + denominator.length - 1 > MAX_DEGREE) {
       throw ValidationError.at(`${pointer}/deadTime`, `adds ${samples} samples of delay; the plant's degree would pass ${MAX_DEGREE}`);
     }
+    denominator = [...denominator, ...new Array<number>(samples).fill(0)];
   }
 
   const lead = denominator[0];
-  numerator = trim(scale(numerator, 1 / lead));
-  denominator = scale(denominator, 1 / lead);
+  numerator = trim(numerator.map((c) => c / lead));
+  denominator = denominator.map((c) => c / lead);
+  if (![...numerator, ...denominator].every(Number.isFinite) || numerator.length === 0) {
+    throw ValidationError.at(
+      formPointer,
+      'has coefficients whose ratios to the leading denominator coefficient overflow or vanish in double precision; rescale the time unit or the gain so that they stay within about 1e±300',
+    );
+  }
   warnings.push(...cancellationWarnings(roots(denominator), roots(numerator), domain));
   return { numerator, denominator, domain, sampleTime, warnings };
 }

@@ -24,8 +24,13 @@ export type Coefficients = ArrayLike<number>;
  * |z| > 1, which keeps Horner's rule from overflowing on large roots.
  * The leading coefficient must be non-zero and `re`/`im` must hold exactly n = degree values.
  */
-export function refineRoots(p: Coefficients, re: Float64Array, im: Float64Array, maxIterations = 60): Refinement {
-  const n = p.length - 1;
+export function refineRoots(coefficients: Coefficients, re: Float64Array, im: Float64Array, maxIterations = 60): Refinement {
+  const n = coefficients.length - 1;
+  // scale to a largest coefficient of 1: roots do not move, and p, p′ and their squares stay in range
+  let largest = 0;
+  for (let k = 0; k <= n; k++) largest = Math.max(largest, Math.abs(coefficients[k]));
+  const p = new Float64Array(n + 1);
+  for (let k = 0; k <= n; k++) p[k] = coefficients[k] / largest;
   const tolerance = Math.max(8, 4 * n) * Number.EPSILON;
   separateCoincident(re, im);
   const done = new Uint8Array(n);
@@ -37,8 +42,8 @@ export function refineRoots(p: Coefficients, re: Float64Array, im: Float64Array,
       if (done[i]) continue;
       const zr = re[i];
       const zi = im[i];
-      // Math.hypot is exact but an order of magnitude slower; |z| needs no protection from overflow here
-      const mod = Math.sqrt(zr * zr + zi * zi);
+      // |z| scaled by its larger part (Math.hypot is an order of magnitude slower in the hot loop)
+      const mod = modulus(zr, zi);
       let ratioRe: number;
       let ratioIm: number;
       if (mod <= 1) {
@@ -53,7 +58,7 @@ export function refineRoots(p: Coefficients, re: Float64Array, im: Float64Array,
           pr = npr;
           bound = bound * mod + Math.abs(p[k]);
         }
-        if (pr * pr + pi * pi <= tolerance * tolerance * bound * bound) {
+        if (modulus(pr, pi) <= tolerance * bound) {
           done[i] = 1;
           remaining--;
           continue;
@@ -68,9 +73,19 @@ export function refineRoots(p: Coefficients, re: Float64Array, im: Float64Array,
         ratioIm = (pi * dr - pr * di) / den;
       } else {
         // q(y) = y^n p(1/y): Horner over the reversed coefficients at y = 1/z
-        const yd = zr * zr + zi * zi;
-        const yr = zr / yd;
-        const yi = -zi / yd;
+        // y = 1/z by Smith's division, safe for very large |z|
+        let yr: number, yi: number;
+        if (Math.abs(zr) >= Math.abs(zi)) {
+          const r = zi / zr;
+          const d = zr + zi * r;
+          yr = 1 / d;
+          yi = -r / d;
+        } else {
+          const r = zr / zi;
+          const d = zr * r + zi;
+          yr = r / d;
+          yi = -1 / d;
+        }
         const ymod = 1 / mod;
         let qr = 0, qi = 0, dr = 0, di = 0, bound = 0;
         for (let k = n; k >= 0; k--) {
@@ -82,7 +97,7 @@ export function refineRoots(p: Coefficients, re: Float64Array, im: Float64Array,
           qr = nqr;
           bound = bound * ymod + Math.abs(p[k]);
         }
-        if (qr * qr + qi * qi <= tolerance * tolerance * bound * bound) {
+        if (modulus(qr, qi) <= tolerance * bound) {
           done[i] = 1;
           remaining--;
           continue;
@@ -130,6 +145,17 @@ export function refineRoots(p: Coefficients, re: Float64Array, im: Float64Array,
     }
   }
   return { converged: remaining === 0, iterations };
+}
+
+/** |x + jy| without overflow or underflow in the squares, and cheaper than Math.hypot. */
+function modulus(x: number, y: number): number {
+  const ax = Math.abs(x);
+  const ay = Math.abs(y);
+  const big = ax > ay ? ax : ay;
+  if (big === 0 || big === Infinity) return big;
+  const small = ax > ay ? ay : ax;
+  const q = small / big;
+  return big * Math.sqrt(1 + q * q);
 }
 
 /**
@@ -227,5 +253,5 @@ export function roots(polynomial: Polynomial): Complex[] {
   }
   const found: Complex[] = [];
   for (let i = 0; i < n; i++) found.push({ re: re[i], im: im[i] });
-  return [...zeros, ...symmetrize(found, 64 * Number.EPSILON)];
+  return [...zeros, ...symmetrize(found, 64 * Number.EPSILON, p)];
 }

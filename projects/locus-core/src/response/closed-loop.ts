@@ -20,7 +20,7 @@ import { MAX_STEP_POINTS, automaticSpan, stepSeries } from './step-response';
  * and about 4.3 % overshoot.
  */
 export function closedLoop(request: ClosedLoopRequest): ClosedLoopResult {
-  if (typeof request !== 'object' || request === null) throw ValidationError.at('', 'the request must be an object with "plant" and "gain"');
+  if (typeof request !== 'object' || request === null || Array.isArray(request)) throw ValidationError.at('', 'the request must be an object with "plant" and "gain"');
   if (!('plant' in request)) throw ValidationError.at('/plant', 'is required');
   const gain = request.gain;
   if (typeof gain !== 'number' || !Number.isFinite(gain)) throw ValidationError.at('/gain', 'must be a finite number (the loop gain K)');
@@ -61,7 +61,7 @@ export function closedLoop(request: ClosedLoopRequest): ClosedLoopResult {
 
 function readStep(step: ClosedLoopRequest['step']): { duration?: number; points?: number } {
   if (step === undefined) return {};
-  if (typeof step !== 'object' || step === null) throw ValidationError.at('/step', 'must be an object { "duration": seconds, "points": count }');
+  if (typeof step !== 'object' || step === null || Array.isArray(step)) throw ValidationError.at('/step', 'must be an object { "duration": seconds, "points": count }');
   if (step.duration !== undefined && (typeof step.duration !== 'number' || !Number.isFinite(step.duration) || step.duration <= 0)) throw ValidationError.at('/step/duration', 'must be a positive number of seconds');
   if (step.points !== undefined && (typeof step.points !== 'number' || !Number.isInteger(step.points) || step.points < 2 || step.points > MAX_STEP_POINTS)) throw ValidationError.at('/step/points', `must be a whole number from 2 to ${MAX_STEP_POINTS}`);
   return { duration: step.duration, points: step.points };

@@ -7,7 +7,7 @@ import { routhExact, type StabilityVerdict } from './routh';
  * roots in the open left half-plane are exactly the images of the roots of p strictly inside the unit
  * circle (a root at z = −1 goes to infinity and lowers the degree). Floating point; see
  * `bilinearStability` for the exact test.
- * Example: bilinear([1, −0.5], 1) = [−1.5, 0.5], whose root w = 1/3 is the image of z = 0.5.
+ * Example: bilinear([1, −0.5], 1) = [1.5, 0.5], whose root w = −1/3 is the image of z = 0.5.
  */
 export function bilinear(p: Polynomial, n = p.length - 1): number[] {
   let out: number[] = [0];
