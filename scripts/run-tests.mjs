@@ -7,7 +7,9 @@ import { mkdirSync, readFileSync, rmSync } from 'node:fs';
 mkdirSync('test-artifacts', { recursive: true });
 const report = 'test-artifacts/vitest-report.json';
 rmSync(report, { force: true });
-const run = spawnSync('npx', ['vitest', 'run', '--reporter=default', '--reporter=json', `--outputFile=${report}`], { stdio: 'inherit' });
+// a hard ceiling so that a hung suite can never hold CI for its whole allowance
+const run = spawnSync('npx', ['vitest', 'run', '--reporter=default', '--reporter=json', `--outputFile=${report}`], { stdio: 'inherit', timeout: 30 * 60 * 1000 });
+if (run.error) console.error(`the test run did not finish: ${run.error.message}`);
 
 let passed = 0;
 let failed = 0;

@@ -70,14 +70,21 @@ export function symmetrize(values: readonly Complex[], realTolerance = 1e-10, po
   // a value left without a partner is a real root blurred by rounding or by the polynomial's
   // conditioning: with the polynomial, Newton's method along the real axis settles it (kept only if
   // its residual is no worse); without, only rounding-level noise is dropped
+  const settled: number[] = out.filter((v, i) => v.im === 0 && !upper.includes(i) && !lower.includes(i)).map((v) => v.re);
   for (const i of [...upper, ...lower]) {
     if (used.has(i)) continue;
     const v = out[i];
+    const size = Math.hypot(v.re, v.im);
     if (polynomial) {
       const real = realNewton(polynomial, v.re);
-      const isNear = real !== null && Math.abs(real - v.re) <= 4 * Math.abs(v.im);
-      if (isNear && residual(polynomial, { re: real, im: 0 }) <= Math.max(residual(polynomial, v) * 4, 1e-300)) out[i] = { re: real, im: 0 };
-    } else if (Math.abs(v.im) <= 1e-6 * Math.hypot(v.re, v.im)) out[i] = { re: v.re, im: 0 };
+      // near: within the blur of this root, and not onto a real root another value already settled on
+      const isNear = real !== null && Math.abs(real - v.re) <= 4 * Math.abs(v.im) + 1e-2 * size;
+      const isTaken = real !== null && settled.some((x) => Math.abs(x - real) <= 1e-9 * Math.max(1, Math.abs(real)));
+      if (isNear && !isTaken && residual(polynomial, { re: real, im: 0 }) <= Math.max(residual(polynomial, v) * 4, 64 * Number.EPSILON)) {
+        out[i] = { re: real, im: 0 };
+        settled.push(real);
+      }
+    } else if (Math.abs(v.im) <= 1e-6 * size) out[i] = { re: v.re, im: 0 };
   }
   return out;
 }

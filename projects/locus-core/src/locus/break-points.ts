@@ -24,8 +24,9 @@ export function breakPoints(numerator: Polynomial, denominator: Polynomial): Bre
   if (trimmed.length < 2) return [];
   const found: BreakPoint[] = [];
   const zeros = roots(numerator);
-  for (const r of roots(trimmed)) {
-    if (r.im < 0) continue; // one of each conjugate pair; its mirror is added below
+  for (const found0 of roots(trimmed)) {
+    // work in the upper half-plane; a mirror image already handled is caught as a duplicate below
+    const r = found0.im < 0 ? { re: found0.re, im: -found0.im } : found0;
     const x = nearReal(trimmed, r) ?? polishRoot(trimmed, r);
     // at a zero of N the gain is infinite, unless the zero cancels a pole; either way no break point
     if (zeros.some((z) => Math.hypot(z.re - x.re, z.im - x.im) <= 1e-5 * Math.max(1, Math.hypot(x.re, x.im)))) continue;

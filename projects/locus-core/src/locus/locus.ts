@@ -32,7 +32,9 @@ export function locus(request: LocusRequest): LocusResult {
   const allCrossings = boundaryCrossings(numerator, denominator, domain);
   const asymptote = asymptotes(numerator, denominator);
 
-  const featurePoints: Complex[] = [...poles, ...zeros, ...rawBreaks.map((b) => b.point), ...allCrossings.map((c) => c.point)];
+  // the region frames what will be drawn: break points and crossings at negative gain only when traced
+  const drawn = (gain: number): boolean => gain >= 0 || options.includeNegative || (options.min !== undefined && options.min < 0);
+  const featurePoints: Complex[] = [...poles, ...zeros, ...rawBreaks.filter((b) => drawn(b.gain)).map((b) => b.point), ...allCrossings.filter((c) => drawn(c.gain)).map((c) => c.point)];
   if (asymptote) featurePoints.push({ re: asymptote.centroid, im: 0 });
   const region = regionOf(featurePoints, domain);
   const gainScale = gainScaleOf(numerator, denominator, region, poles);
@@ -55,6 +57,10 @@ export function locus(request: LocusRequest): LocusResult {
     }
     return end;
   };
+  // gains far beyond any physical meaning only make D + K·N overflow; refuse them with the reason
+  const limit = 1e15 * gainScale;
+  if (options.max !== undefined && options.max > limit) throw ValidationError.at('/gainRange/max', `is beyond 1e15 times this loop's gain scale (${gainScale.toPrecision(3)}); no closed-loop pole moves noticeably past ${limit.toPrecision(3)}`);
+  if (options.min !== undefined && options.min < -limit) throw ValidationError.at('/gainRange/min', `is beyond −1e15 times this loop's gain scale (${gainScale.toPrecision(3)})`);
   const maxGain = endFor(1, options.max !== undefined && options.max > 0 ? options.max : undefined);
   const traceNegative = options.includeNegative || (options.min !== undefined && options.min < 0);
   const minGain = traceNegative ? endFor(-1, options.min !== undefined && options.min < 0 ? options.min : undefined) : Math.max(0, options.min ?? 0);

@@ -46,7 +46,14 @@ export function normalizePlant(plant: unknown, pointer = '/plant'): NormalizedPl
   let domain: Domain = common.domain;
   let sampleTime: number | null = common.domain === 'z' ? common.sampleTime : null;
   if (common.discretizeTime !== null) {
+    const delaySamples = Math.ceil(common.deadTime / common.discretizeTime);
+    if (delaySamples + denominator.length - 1 > MAX_DEGREE) {
+      throw ValidationError.at(`${pointer}/deadTime`, `spans ${delaySamples} sampling periods; the sampled plant's degree would pass ${MAX_DEGREE}`);
+    }
     const sampled = zeroOrderHoldEquivalent(numerator, denominator, common.discretizeTime, common.deadTime);
+    if (![...sampled.numerator, ...sampled.denominator].every(Number.isFinite)) {
+      throw ValidationError.at(`${pointer}/discretize/sampleTime`, "is too long for this plant's dynamics: e^(pole·T) overflows double precision");
+    }
     numerator = sampled.numerator;
     denominator = sampled.denominator;
     domain = 'z';

@@ -44,8 +44,12 @@ export function exponential(m: number[][]): number[][] {
     for (let i = 0; i < m.length; i++) column += Math.abs(m[i][j]);
     norm = Math.max(norm, column);
   }
-  const k = norm > 0.5 ? Math.ceil(Math.log2(norm / 0.5)) : 0;
-  const scaled = k > 0 ? m.map((row) => row.map((v) => v / 2 ** k)) : m;
+  // an overflowing matrix has no representable exponential: NaN entries, rejected by the caller
+  if (!Number.isFinite(norm)) return m.map((row) => row.map(() => NaN));
+  // log2(norm) + 1 rather than log2(norm/0.5), which overflows for norms near the largest double
+  const k = norm > 0.5 ? Math.ceil(Math.log2(norm) + 1) : 0;
+  const factor = 2 ** -k; // stays a (possibly subnormal) positive number up to k = 1074
+  const scaled = k > 0 ? m.map((row) => row.map((v) => v * factor)) : m;
   let e = expm(matrix(scaled)).toArray() as number[][];
   for (let i = 0; i < k; i++) e = multiplyMatrices(e, e);
   return e;

@@ -243,6 +243,20 @@ export function roots(polynomial: Polynomial): Complex[] {
   const n = p.length - 1;
   if (n <= 0) return zeros;
   if (n === 1) return [...zeros, { re: -p[1] / p[0], im: 0 }];
+  // solve for w = z/σ with σ the geometric mean of the root moduli, so that the coefficients of the
+  // scaled polynomial are balanced even when the roots are astronomically large or small
+  const sigma = Math.abs(p[n] / p[0]) ** (1 / n);
+  const balanced = Number.isFinite(sigma) && sigma > 0 && (sigma > 1e8 || sigma < 1e-8);
+  // coefficient i of p(σw)/σⁿ is a_i·σ^(−i), formed in the log domain so neither factor over- or underflows
+  const logSigma = Math.log(sigma);
+  const q = balanced ? p.map((c, i) => (c === 0 ? 0 : Math.sign(c) * Math.exp(Math.log(Math.abs(c)) - i * logSigma))) : p;
+  if (balanced && !q.every(Number.isFinite)) return [...zeros, ...rootsOf(p)];
+  const scaled = rootsOf(q);
+  return [...zeros, ...(balanced ? scaled.map((w) => ({ re: w.re * sigma, im: w.im * sigma })) : scaled)];
+}
+
+function rootsOf(p: Polynomial): Complex[] {
+  const n = p.length - 1;
   const re = new Float64Array(n);
   const im = new Float64Array(n);
   initialApproximations(p, re, im);
@@ -253,5 +267,5 @@ export function roots(polynomial: Polynomial): Complex[] {
   }
   const found: Complex[] = [];
   for (let i = 0; i < n; i++) found.push({ re: re[i], im: im[i] });
-  return [...zeros, ...symmetrize(found, 64 * Number.EPSILON, p)];
+  return symmetrize(found, 64 * Number.EPSILON, p);
 }
