@@ -30,21 +30,17 @@ export function refineChange(
 }
 
 /**
- * Neighbouring samples of a traced locus between which `judge` changes value, as [low, high] gain
- * brackets. `gains` ascend; `polesAt(k)` gives the closed-loop poles at sample k. K = 0 itself is left
+ * Neighbouring samples of a traced locus between which `judgeAt(k)` changes value, as [low, high]
+ * gain brackets. `gains` ascend. K = 0 itself is left
  * out (open-loop poles may sit on a boundary; it is no boundary of a set of K > 0).
  */
-export function sampledBrackets(
-  gains: readonly number[],
-  polesAt: (k: number) => Complex[],
-  judge: (poles: Complex[]) => number | boolean,
-): [number, number][] {
+export function sampledBrackets(gains: readonly number[], judgeAt: (k: number) => number | boolean): [number, number][] {
   const out: [number, number][] = [];
   const first = gains[0] === 0 ? 1 : 0;
   if (first >= gains.length) return out;
-  let previous = judge(polesAt(first));
+  let previous = judgeAt(first);
   for (let k = first + 1; k < gains.length; k++) {
-    const current = judge(polesAt(k));
+    const current = judgeAt(k);
     if (current !== previous) out.push([gains[k - 1], gains[k]]);
     previous = current;
   }
@@ -60,7 +56,7 @@ export function sampledChanges(
   judge: (poles: Complex[]) => number | boolean,
 ): number[] {
   const out: number[] = [];
-  for (const [low, high] of sampledBrackets(gains, polesAt, judge)) {
+  for (const [low, high] of sampledBrackets(gains, (k) => judge(polesAt(k)))) {
     const gain = refineChange(numerator, denominator, low, high, judge);
     if (gain !== null) out.push(gain);
   }

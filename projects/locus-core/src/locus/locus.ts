@@ -113,16 +113,13 @@ export function locus(request: LocusRequest): LocusResult {
 function buildBranches(positive: Trace, negative: Trace | null, minGain: number): { points: LocusPoint[] }[] {
   const count = positive.re[0]?.length ?? 0;
   const branches: { points: LocusPoint[] }[] = [];
+  const firstPositive = minGain > 0 ? positive.gains.findIndex((g) => g >= minGain) : 0;
   for (let i = 0; i < count; i++) {
     const points: LocusPoint[] = [];
     if (negative) {
       for (let k = negative.gains.length - 1; k >= 1; k--) points.push({ gain: negative.gains[k], re: negative.re[k][i], im: negative.im[k][i] });
     }
-    for (let k = 0; k < positive.gains.length; k++) {
-      const gain = positive.gains[k];
-      if (minGain > 0 && gain < minGain) continue;
-      points.push({ gain, re: positive.re[k][i], im: positive.im[k][i] });
-    }
+    for (let k = Math.max(0, firstPositive); k < positive.gains.length; k++) points.push({ gain: positive.gains[k], re: positive.re[k][i], im: positive.im[k][i] });
     branches.push({ points });
   }
   return branches;

@@ -25,11 +25,17 @@ export function missedCrossings(
   const isStable = (poles: Complex[]): boolean => poles.every((p) => (domain === 's' ? p.re < 0 : p.re * p.re + p.im * p.im < 1));
   const gains = path.gains.map((g) => Math.abs(g));
   const sign = path.gains[path.gains.length - 1] < 0 ? -1 : 1;
-  const polesAt = (k: number): Complex[] => Array.from(path.re[k], (re, i) => ({ re, im: path.im[k][i] }));
+  // the scan judges the traced arrays directly (no objects per sample); fresh solves use `isStable`
+  const stableAt = (k: number): boolean => {
+    const re = path.re[k];
+    const im = path.im[k];
+    for (let i = 0; i < re.length; i++) if (domain === 's' ? !(re[i] < 0) : !(re[i] * re[i] + im[i] * im[i] < 1)) return false;
+    return true;
+  };
   const signedNumerator = sign > 0 ? numerator : numerator.map((c) => -c);
   const curve = domain === 's' ? IMAGINARY_AXIS : circle(0, 1);
   const found: CurveCrossing[] = [];
-  for (const [low, high] of sampledBrackets(gains, polesAt, isStable)) {
+  for (const [low, high] of sampledBrackets(gains, stableAt)) {
     // a known crossing inside the bracket (ends included, with rounding room) explains the change
     const explained = known.some((c) => {
       const g = Math.abs(c.gain) * Math.sign(c.gain) * sign;

@@ -26,11 +26,16 @@ export type Coefficients = ArrayLike<number>;
  */
 export function refineRoots(coefficients: Coefficients, re: Float64Array, im: Float64Array, maxIterations = 60): Refinement {
   const n = coefficients.length - 1;
-  // scale to a largest coefficient of 1: roots do not move, and p, p′ and their squares stay in range
+  // far from 1, scale to a largest coefficient of 1: roots do not move, and p, p′ and the Aberth sums
+  // stay in range (within range, the copy is skipped — this runs at every gain step)
   let largest = 0;
   for (let k = 0; k <= n; k++) largest = Math.max(largest, Math.abs(coefficients[k]));
-  const p = new Float64Array(n + 1);
-  for (let k = 0; k <= n; k++) p[k] = coefficients[k] / largest;
+  let p: Coefficients = coefficients;
+  if (!(largest > 1e-100 && largest < 1e100)) {
+    const scaled = new Float64Array(n + 1);
+    for (let k = 0; k <= n; k++) scaled[k] = coefficients[k] / largest;
+    p = scaled;
+  }
   const tolerance = Math.max(8, 4 * n) * Number.EPSILON;
   separateCoincident(re, im);
   const done = new Uint8Array(n);
