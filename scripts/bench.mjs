@@ -14,7 +14,11 @@ function rng(seed) {
   };
 }
 
-/** A plant of the given degree: stable and lightly damped poles, degree − 2 zeros (so two asymptotes). */
+/**
+ * A plant of the given degree: stable, partly lightly damped poles and ⌊n/2⌋ real zeros, spread so that
+ * the expanded polynomials stay reasonably conditioned (clustered roots at high degree measure the
+ * conditioning, not the tracker).
+ */
 function plantOfDegree(n, seed) {
   const random = rng(seed);
   const poles = [];
@@ -26,7 +30,7 @@ function plantOfDegree(n, seed) {
     } else poles.push({ re, im: 0 });
   }
   const zeros = [];
-  for (let i = 0; i < Math.max(0, n - 2); i++) zeros.push({ re: -0.5 - 12 * random(), im: 0 });
+  for (let i = 0; i < Math.floor(n / 2); i++) zeros.push({ re: -0.5 - (12 * (i + random())) / Math.floor(n / 2), im: 0 });
   return { numerator: fromRoots(zeros), denominator: fromRoots(poles) };
 }
 

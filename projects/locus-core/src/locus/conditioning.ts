@@ -4,13 +4,13 @@ import type { Polynomial } from '../polynomial/polynomial';
 import type { Warning } from '../types/plant';
 
 /**
- * Warns when the open-loop denominator's roots are so sensitive to its coefficients that working
+ * Warns when the roots of a loop polynomial (the denominator's poles, or the numerator's zeros) are so sensitive to its coefficients that working
  * precision cannot place them to one part in 10⁶ of the plot: the first-order forward error of a simple
  * root r is about n·ε·Σ|d_k||r|^k / |D′(r)| (Wilkinson's condition number of a polynomial root).
  * Roots in clusters (multiple poles) are left out: their sensitivity is expected and harmless to a plot.
  * Example: the poles of a well-separated 4th-order plant raise no warning; forty spread poles can.
  */
-export function conditioningWarnings(denominator: Polynomial, poles: readonly Complex[], scale: number): Warning[] {
+export function conditioningWarnings(denominator: Polynomial, poles: readonly Complex[], scale: number, what: 'pole' | 'zero' = 'pole'): Warning[] {
   const n = denominator.length - 1;
   let worst = 0;
   poles.forEach((r, i) => {
@@ -25,9 +25,9 @@ export function conditioningWarnings(denominator: Polynomial, poles: readonly Co
     {
       code: 'ill-conditioned-polynomial',
       message:
-        `The loop's characteristic polynomial is badly conditioned: rounding alone can move an open-loop pole by about ` +
+        `The loop's ${what === 'pole' ? 'denominator' : 'numerator'} polynomial is badly conditioned: rounding alone can move an open-loop ${what} by about ` +
         `${Number(worst.toPrecision(2))} (${Number(((100 * worst) / scale).toPrecision(2))} % of the plotted region). Every point still satisfies ` +
-        `D + K·N ≈ 0 to working precision, but the pole positions may differ visibly from the factors you entered. ` +
+        `D + K·N ≈ 0 to working precision, but the ${what} positions may differ visibly from the factors you entered. ` +
         `A reduced-order model, or fewer cascaded factors, gives a more trustworthy locus.`,
     },
   ];

@@ -68,7 +68,7 @@ export function locus(request: LocusRequest): LocusResult {
   const traceOptions = { scale: region.scale, center: region.center, gainScale };
   const positive = trace(numerator, denominator, poles, maxGain, [...featureGains.filter((g) => g > 0), ...(minGain > 0 ? [minGain] : [])], traceOptions);
   const negative = traceNegative ? trace(numerator, denominator, poles, minGain, featureGains.filter((g) => g < 0), traceOptions) : null;
-  warnings.push(...conditioningWarnings(denominator, poles, region.scale));
+  warnings.push(...conditioningWarnings(denominator, poles, region.scale), ...conditioningWarnings(numerator, zeros, region.scale, 'zero'));
   if (positive.isCoarse || negative?.isCoarse) {
     warnings.push({ code: 'coarse-tracking', message: 'The poles move too erratically to follow step by step within the work budget (a badly conditioned loop); part of the path was covered by independent solves at coarse gain steps, so branch identity there is by nearest distance.' });
   }
