@@ -21,4 +21,13 @@ describe('conditioningWarnings', () => {
     const warnings = conditioningWarnings(d, roots(d), 19);
     expect(warnings.map((w) => w.code)).toEqual(['ill-conditioned-polynomial']);
   });
+
+  it('names the numerator when it is the zeros that are hypersensitive', () => {
+    // eighteen real zeros packed into [−12, −0.5] (Wilkinson-like clustering of a numerator)
+    const n = fromRoots(Array.from({ length: 18 }, (_, k) => ({ re: -0.5 - (11.5 * k) / 17, im: 0 })));
+    const warnings = conditioningWarnings(n, roots(n), 12, 'zero');
+    expect(warnings).toHaveLength(1);
+    expect(warnings[0].message).toContain('numerator');
+    expect(warnings[0].message).toContain('open-loop zero');
+  });
 });
