@@ -1,3 +1,5 @@
+import { scaledResidual as residual } from '../polynomial/evaluate';
+import { realNewton } from '../polynomial/real-newton';
 import type { Complex } from './complex';
 
 /**
@@ -87,37 +89,4 @@ export function symmetrize(values: readonly Complex[], realTolerance = 1e-10, po
     } else if (Math.abs(v.im) <= 1e-6 * size) out[i] = { re: v.re, im: 0 };
   }
   return out;
-}
-
-/** Scaled residual |p(x)| / Σ|a_k||x|^k (comparable between points of different size). */
-function residual(p: readonly number[], x: Complex): number {
-  let re = 0;
-  let im = 0;
-  let bound = 0;
-  const modulus = Math.hypot(x.re, x.im);
-  for (const c of p) {
-    const r = re * x.re - im * x.im + c;
-    im = re * x.im + im * x.re;
-    re = r;
-    bound = bound * modulus + Math.abs(c);
-  }
-  return bound === 0 ? 0 : Math.hypot(re, im) / bound;
-}
-
-function realNewton(p: readonly number[], start: number): number | null {
-  let x = start;
-  for (let i = 0; i < 40; i++) {
-    let value = 0;
-    let slope = 0;
-    for (const c of p) {
-      slope = slope * x + value;
-      value = value * x + c;
-    }
-    if (slope === 0) return null;
-    const step = value / slope;
-    x -= step;
-    if (!Number.isFinite(x)) return null;
-    if (Math.abs(step) <= 2 * Number.EPSILON * Math.max(1, Math.abs(x))) break;
-  }
-  return x;
 }

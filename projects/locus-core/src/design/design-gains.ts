@@ -5,7 +5,6 @@ import { circle, dampingRay, verticalLine } from '../locus/curve';
 import { curveCrossings } from '../locus/curve-crossings';
 import { locus } from '../locus/locus';
 import { characteristic } from '../locus/stable-ranges';
-import { normalizePlant } from '../plant/normalize';
 import { roots } from '../polynomial/roots';
 import { poleFigures } from '../response/pole-figures';
 import type { DesignRequest, DesignResult, GainRange } from '../types/results';
@@ -30,9 +29,10 @@ export function designGains(request: DesignRequest): DesignResult {
   const lines = readDampingLines(request.dampingLines);
   const dominantOnly = request.dominantOnly ?? false;
   if (typeof dominantOnly !== 'boolean') throw ValidationError.at('/dominantOnly', 'must be true or false');
-  const plant = normalizePlant(request.plant);
+  // locus validates and normalises the plant; its result carries the normalised form
   const traced = locus({ plant: request.plant, gainRange: request.gainRange });
-  const { numerator, denominator, domain, sampleTime } = plant;
+  const { numerator, denominator } = traced.normalizedPlant;
+  const { domain, sampleTime } = traced;
 
   const gains = traced.branches[0]?.points.map((p) => p.gain) ?? [0, traced.gainSpan.max];
   const polesAt = (k: number): Complex[] => traced.branches.map((b) => ({ re: b.points[k].re, im: b.points[k].im }));

@@ -1,6 +1,7 @@
 import type { Complex } from '../complex/complex';
 import { evaluateAbs, evaluateComplex, evaluateWithDerivative } from '../polynomial/evaluate';
 import { add, derivative, multiply, scale, type Polynomial } from '../polynomial/polynomial';
+import { realNewton } from '../polynomial/real-newton';
 import { roots } from '../polynomial/roots';
 
 /** A point where branches meet and part, with the gain at which they do. */
@@ -13,9 +14,10 @@ export interface BreakPoint {
  * Break-away and break-in points, real and complex: the roots of D′N − DN′ = 0 (where dK/dx = 0 for
  * K(x) = −D(x)/N(x)) at which K is real, each with its gain. Every one is a multiple root of D + K·N.
  * Roots shared by N and D (cancellations) are skipped. Polished by Newton's method on D′N − DN′.
+ * `zeros` are the roots of N when the caller already has them.
  * Example: D = s(s + 2), N = 1 has its break-away point at −1 with K = 1.
  */
-export function breakPoints(numerator: Polynomial, denominator: Polynomial): BreakPoint[] {
+export function breakPoints(numerator: Polynomial, denominator: Polynomial, zeros: readonly Complex[] = roots(numerator)): BreakPoint[] {
   const condition = add(multiply(derivative(denominator), numerator), scale(multiply(denominator, derivative(numerator)), -1));
   let start = 0;
   const size = Math.max(0, ...condition.map(Math.abs));
@@ -23,7 +25,6 @@ export function breakPoints(numerator: Polynomial, denominator: Polynomial): Bre
   const trimmed = condition.slice(start);
   if (trimmed.length < 2) return [];
   const found: BreakPoint[] = [];
-  const zeros = roots(numerator);
   for (const found0 of roots(trimmed)) {
     // work in the upper half-plane; a mirror image already handled is caught as a duplicate below
     const r = found0.im < 0 ? { re: found0.re, im: -found0.im } : found0;
@@ -73,15 +74,8 @@ function polishRoot(p: Polynomial, start: Complex): Complex {
 function nearReal(p: Polynomial, start: Complex): Complex | null {
   const size = Math.max(1, Math.hypot(start.re, start.im));
   if (Math.abs(start.im) > 1e-4 * size) return null;
-  let x = start.re;
-  for (let i = 0; i < 30; i++) {
-    const { value, slope } = evaluateWithDerivative(p, { re: x, im: 0 });
-    if (slope.re === 0) return null;
-    const step = value.re / slope.re;
-    x -= step;
-    if (!Number.isFinite(x)) return null;
-    if (Math.abs(step) <= 4 * Number.EPSILON * Math.max(1, Math.abs(x))) break;
-  }
+  const x = realNewton(p, start.re);
+  if (x === null) return null;
   const residual = Math.abs(evaluateComplex(p, { re: x, im: 0 }).re);
   if (Math.abs(x - start.re) > 1e-3 * size || residual > 1e-10 * evaluateAbs(p, Math.abs(x))) return null;
   return { re: x, im: 0 };

@@ -28,7 +28,7 @@ export function locus(request: LocusRequest): LocusResult {
   const warnings: Warning[] = [...plant.warnings];
   const poles = roots(denominator);
   const zeros = roots(numerator);
-  const rawBreaks = breakPoints(numerator, denominator);
+  const rawBreaks = breakPoints(numerator, denominator, zeros);
   const allCrossings = boundaryCrossings(numerator, denominator, domain);
   const asymptote = asymptotes(numerator, denominator);
 

@@ -1,5 +1,3 @@
-import type { Polynomial } from '../polynomial/polynomial';
-
 /** A single-input single-output state-space model ẋ = Ax + Bu, y = Cx + Du (matrices as arrays of rows). */
 export interface StateSpace {
   readonly a: number[][];

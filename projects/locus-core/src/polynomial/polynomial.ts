@@ -4,11 +4,6 @@
  */
 export type Polynomial = readonly number[];
 
-/** Degree of a trimmed polynomial (−∞ is represented as −1 for the zero polynomial). */
-export function degree(p: Polynomial): number {
-  return trim(p).length - 1;
-}
-
 /** Drops leading zero coefficients; the zero polynomial becomes `[]`. */
 export function trim(p: Polynomial): number[] {
   let start = 0;
@@ -56,11 +51,4 @@ export function derivative(p: Polynomial): number[] {
   const out: number[] = [];
   for (let i = 0; i < n; i++) out.push(p[i] * (n - i));
   return out;
-}
-
-/** Largest absolute coefficient (the "size" of a polynomial). */
-export function maxAbsCoefficient(p: Polynomial): number {
-  let m = 0;
-  for (const a of p) m = Math.max(m, Math.abs(a));
-  return m;
 }

@@ -41,17 +41,18 @@ export function closedLoop(request: ClosedLoopRequest): ClosedLoopResult {
   const b = scale(numerator, gain);
   let step: StepResponse | null = null;
   if (gain !== 0) {
+    const system = { b, a, zeros: roots(numerator), poles: rawPoles };
     const automatic = automaticSpan(poles, domain, sampleTime);
     let duration = stepOptions.duration ?? automatic.duration;
     let points = stepOptions.points ?? automatic.points;
     const finalValue = verdict.isStable ? (domain === 's' ? b[b.length - 1] / a[a.length - 1] : evaluate(b, 1) / evaluate(a, 1)) : null;
-    let series = stepSeries(b, a, domain, sampleTime, duration, domain === 'z' ? Math.round(duration / (sampleTime as number)) + 1 : points);
+    let series = stepSeries(system, domain, sampleTime, duration, domain === 'z' ? Math.round(duration / (sampleTime as number)) + 1 : points);
     let figures = stepFigures(series.time, series.output, finalValue, domain === 's');
     // an automatic span that ends before the response settles is doubled (a few times at most)
     for (let attempt = 0; attempt < 4 && stepOptions.duration === undefined && finalValue !== null && !figures.isSettled; attempt++) {
       duration *= 2;
       points = Math.min(MAX_STEP_POINTS, points * 2);
-      series = stepSeries(b, a, domain, sampleTime, duration, domain === 'z' ? Math.min(MAX_STEP_POINTS, Math.round(duration / (sampleTime as number)) + 1) : points);
+      series = stepSeries(system, domain, sampleTime, duration, domain === 'z' ? Math.min(MAX_STEP_POINTS, Math.round(duration / (sampleTime as number)) + 1) : points);
       figures = stepFigures(series.time, series.output, finalValue, domain === 's');
     }
     step = { ...series, overshootPct: figures.overshootPct, riseTime: figures.riseTime, settlingTime: figures.settlingTime, finalValue, peak: figures.peak };

@@ -1,6 +1,5 @@
 import type { Complex } from '../complex/complex';
 import { realizeCascade } from '../plant/cascade';
-import { roots } from '../polynomial/roots';
 import { heldStep, multiplyVector } from '../plant/zero-order-hold';
 import { padTo, type Polynomial } from '../polynomial/polynomial';
 import type { Domain } from '../types/plant';
@@ -8,12 +7,21 @@ import type { Domain } from '../types/plant';
 /** Largest number of samples a step response may have. */
 export const MAX_STEP_POINTS = 20000;
 
+/** A closed loop b/a with its zeros (roots of b) and poles (roots of a), already computed. */
+export interface ClosedLoopSystem {
+  readonly b: Polynomial;
+  readonly a: Polynomial;
+  readonly zeros: readonly Complex[];
+  readonly poles: readonly Complex[];
+}
+
 /**
  * Unit-step response of the closed loop b/a, exact at the samples: for s-loops by the exact
  * discretisation of a cascade state-space realisation over the sample interval (a step input is constant,
  * so a zero-order hold represents it without error), for z-loops by the difference equation itself.
  */
-export function stepSeries(b: Polynomial, a: Polynomial, domain: Domain, sampleTime: number | null, duration: number, points: number): { time: number[]; output: number[] } {
+export function stepSeries(system: ClosedLoopSystem, domain: Domain, sampleTime: number | null, duration: number, points: number): { time: number[]; output: number[] } {
+  const { b, a } = system;
   if (domain === 'z') {
     const t = sampleTime as number;
     const count = Math.max(2, Math.min(MAX_STEP_POINTS, points));
@@ -31,7 +39,7 @@ export function stepSeries(b: Polynomial, a: Polynomial, domain: Domain, sampleT
     }
     return { time, output };
   }
-  const model = realizeCascade(b[0] / a[0], roots(b), roots(a));
+  const model = realizeCascade(b[0] / a[0], system.zeros, system.poles);
   const h = duration / (points - 1);
   const { phi, gamma } = heldStep(model, h);
   let x = new Array<number>(model.a.length).fill(0);
