@@ -5,7 +5,10 @@ import { dirname, join, relative, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '..');
-const packages = [['@polewright/locus-core', 'dist/locus-core']];
+const packages = [
+  ['@polewright/locus-core', 'dist/locus-core'],
+  ['@polewright/elements', 'dist/locus-elements'],
+];
 
 for (const [name, folder] of packages) {
   const target = join(root, folder);

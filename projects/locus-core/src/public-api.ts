@@ -29,6 +29,7 @@ export type {
 export { roots, refineRoots } from './polynomial/roots';
 export { evaluate, evaluateComplex, scaledResidual } from './polynomial/evaluate';
 export { fromRoots } from './polynomial/from-roots';
+export { multiply } from './polynomial/polynomial';
 export { routh } from './stability/routh';
 export { jury } from './stability/jury';
 export { bilinear, bilinearStability } from './stability/bilinear';

@@ -25,7 +25,10 @@ export function scale(p: Polynomial, c: number): number[] {
   return p.map((a) => a * c);
 }
 
-/** Product p·q (convolution of the coefficient lists). */
+/**
+ * Product p·q (convolution of the coefficient lists, highest power first).
+ * Example: multiply([1, 1], [1, 2]) = [1, 3, 2], i.e. (s + 1)(s + 2) = s² + 3s + 2.
+ */
 export function multiply(p: Polynomial, q: Polynomial): number[] {
   if (p.length === 0 || q.length === 0) return [];
   const out = new Array<number>(p.length + q.length - 1).fill(0);

@@ -1,0 +1,44 @@
+import { Router } from 'express';
+import type { AppContext } from '../context.js';
+import { ForbiddenError, NotFoundError, UnauthorizedError } from '../http/problem.js';
+import type { components } from '../openapi/api-types.js';
+import { ROLE_PERMISSIONS } from '../auth/permissions.js';
+import type { Principal } from '../auth/principal.js';
+import { userView } from '../users/user-view.js';
+import { findUserById } from '../users/users.repository.js';
+import { findSessionById } from './sessions.repository.js';
+import { signIn, signOut } from './sessions.service.js';
+
+type SignIn = components['schemas']['SignIn'];
+type SessionCreated = components['schemas']['SessionCreated'];
+type Me = components['schemas']['Me'];
+
+function sessionOf(principal: Principal | undefined): Principal {
+  if (!principal) throw new UnauthorizedError();
+  if (principal.kind !== 'session') throw new ForbiddenError('Only a signed-in session can do this (not an API key or embed token).');
+  return principal;
+}
+
+/** `POST /sessions` (sign in), `DELETE /sessions/current` (sign out), `GET /me`. */
+export function sessionsRouter(context: AppContext): Router {
+  const router = Router();
+  router.post('/sessions', async (req, res) => {
+    const body = req.body as SignIn;
+    const session = await signIn(context, body.email, body.password, req.ip);
+    const created: SessionCreated = { token: session.token, expiresAt: session.expiresAt, user: userView(session.user) };
+    res.status(201).json(created);
+  });
+  router.delete('/sessions/current', async (req, res) => {
+    const principal = sessionOf(req.principal);
+    await signOut(context, principal.tokenId, principal.userId);
+    res.status(204).end();
+  });
+  router.get('/me', async (req, res) => {
+    const principal = sessionOf(req.principal);
+    const [user, session] = await Promise.all([findUserById(context, principal.userId ?? ''), findSessionById(context, principal.tokenId)]);
+    if (!user || !session) throw new NotFoundError('The session');
+    const me: Me = { user: userView(user), permissions: [...ROLE_PERMISSIONS[user.role]], session: { id: session.id, expiresAt: session.expiresAt } };
+    res.json(me);
+  });
+  return router;
+}

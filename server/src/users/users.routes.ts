@@ -1,0 +1,44 @@
+import { Router } from 'express';
+import { authorize } from '../auth/authorize.js';
+import type { AppContext } from '../context.js';
+import { pagingOf } from '../http/paging.js';
+import { NotFoundError } from '../http/problem.js';
+import type { components } from '../openapi/api-types.js';
+import { userView } from './user-view.js';
+import { findUserById, listUsers } from './users.repository.js';
+import { acceptInvitation, changeUser, inviteUser } from './users.service.js';
+
+type S = components['schemas'];
+
+/** Admin user management (`/users`) and the public `POST /invitations/{token}/accept`. */
+export function usersRouter(context: AppContext): Router {
+  const router = Router();
+  router.get('/users', authorize('admin'), async (req, res) => {
+    const { page, pageSize } = pagingOf(req);
+    const { items, total } = await listUsers(context, page, pageSize);
+    const body: S['UserPage'] = { items: items.map(userView), total, page, pageSize };
+    res.json(body);
+  });
+  router.post('/users', authorize('admin'), async (req, res) => {
+    const input = req.body as S['UserInvite'];
+    const { user, invitationExpiresAt } = await inviteUser(context, req.principal!, input);
+    const body: S['UserInvited'] = { user: userView(user), invitationExpiresAt };
+    res.status(201).location(`/api/v1/users/${user.id}`).json(body);
+  });
+  router.get('/users/:id', authorize('admin'), async (req, res) => {
+    const user = await findUserById(context, req.params['id'] as string);
+    if (!user) throw new NotFoundError('The user');
+    res.json(userView(user) satisfies S['User']);
+  });
+  router.patch('/users/:id', authorize('admin'), async (req, res) => {
+    const user = await changeUser(context, req.principal!, req.params['id'] as string, req.body as S['UserUpdate']);
+    res.json(userView(user) satisfies S['User']);
+  });
+  router.post('/invitations/:token/accept', async (req, res) => {
+    const input = req.body as S['InvitationAccept'];
+    const session = await acceptInvitation(context, req.params['token'] as string, input.name, input.password);
+    const body: S['SessionCreated'] = { token: session.token, expiresAt: session.expiresAt, user: userView(session.user) };
+    res.status(201).json(body);
+  });
+  return router;
+}
