@@ -1,3 +1,4 @@
+import { availableParallelism } from 'node:os';
 import { dirname, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
@@ -40,6 +41,8 @@ export interface ServerConfig {
   readonly validateResponses: boolean;
   /** Whether start-up and request-error logs are printed. */
   readonly quiet: boolean;
+  /** Worker threads that run the engine (COMPUTE_WORKERS; default the available parallelism, at least 1). */
+  readonly computeWorkers: number;
 }
 
 function integer(value: string | undefined, fallback: number, name: string): number {
@@ -77,5 +80,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
     openapiPath: resolve(REPO_ROOT, 'openapi', 'openapi.yaml'),
     validateResponses: env['OPENAPI_VALIDATE_RESPONSES'] === '1',
     quiet: env['POLEWRIGHT_QUIET'] === '1',
+    computeWorkers: Math.max(1, integer(env['COMPUTE_WORKERS'], availableParallelism(), 'COMPUTE_WORKERS')),
   };
 }

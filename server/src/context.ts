@@ -1,4 +1,5 @@
 import type { DataSource } from 'typeorm';
+import { type ComputePool, createComputePool } from './compute/compute-pool.js';
 import type { ServerConfig } from './config.js';
 import { openDataSource } from './db/data-source.js';
 import { createMailer, type Mailer } from './mail/mailer.js';
@@ -13,6 +14,8 @@ export interface AppContext {
   clock?: () => Date;
   /** Where the server writes its log lines (console when absent). */
   log?: (message: string) => void;
+  /** Worker threads running the engine (COMPUTE_WORKERS); compute runs on the event loop when absent. */
+  compute?: ComputePool;
 }
 
 /** The current time as the context sees it. */
@@ -36,7 +39,8 @@ export interface ContextOptions {
 export async function createContext(config: ServerConfig, options: ContextOptions = {}): Promise<AppContext> {
   const dataSource = await openDataSource(config.databasePath);
   const mailer = await createMailer(config);
-  const context: AppContext = { dataSource, config, mailer, clock: options.clock, log: options.log };
+  const compute = createComputePool(config.computeWorkers);
+  const context: AppContext = { dataSource, config, mailer, clock: options.clock, log: options.log, compute };
   try {
     await seed(context);
   } catch (error) {
@@ -46,8 +50,9 @@ export async function createContext(config: ServerConfig, options: ContextOption
   return context;
 }
 
-/** Stops the mailer and closes the database. */
+/** Stops the compute workers and the mailer and closes the database. */
 export async function closeContext(context: AppContext): Promise<void> {
+  await context.compute?.close();
   await context.mailer.close();
   if (context.dataSource.isInitialized) await context.dataSource.destroy();
 }

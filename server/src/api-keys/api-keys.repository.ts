@@ -1,5 +1,6 @@
 import type { EntityManager } from 'typeorm';
 import { IsNull, LessThanOrEqual } from 'typeorm';
+import { forgetToken } from '../auth/token-cache.js';
 import type { AppContext } from '../context.js';
 import { ApiKeyEntity, type ApiKeyRecord } from './api-key.entity.js';
 
@@ -27,9 +28,13 @@ export async function listApiKeys(context: AppContext): Promise<ApiKeyRecord[]> 
   return keys(context).find({ order: { createdAt: 'DESC' } });
 }
 
-/** Changes some fields of a key. */
+// bookkeeping fields that do not change what a key may do (its cached principal stays valid)
+const BOOKKEEPING = new Set(['lastUsedAt', 'expiryNoticeSentAt']);
+
+/** Changes some fields of a key; any change beyond bookkeeping (revoke, expiry, scopes) drops its cached principal at once. */
 export async function updateApiKey(context: AppContext, id: string, changes: Partial<Omit<ApiKeyRecord, 'id'>>, manager?: EntityManager): Promise<void> {
   await keys(context, manager).update({ id }, changes);
+  if (Object.keys(changes).some((field) => !BOOKKEEPING.has(field))) forgetToken(context, id);
 }
 
 /** Live keys (not revoked, with an expiry) expiring at or before `before` whose issuer has not been told yet. */

@@ -1,10 +1,7 @@
 import { Router, type RequestHandler } from 'express';
 import { authorize } from '../auth/authorize.js';
 import type { AppContext } from '../context.js';
-import type { components } from '../openapi/api-types.js';
-import { checkComputeSize, computeClosedLoop, computeDesign, computeLocus } from './compute.service.js';
-
-type S = components['schemas'];
+import { checkComputeSize, compute } from './compute.service.js';
 
 /** Refuses oversized compute bodies before any work is done. */
 const sizeGuard: RequestHandler = (req, _res, next) => {
@@ -14,21 +11,19 @@ const sizeGuard: RequestHandler = (req, _res, next) => {
 
 /**
  * `POST /locus`, `POST /closed-loop`, `POST /design` (mounted under `/api/v1`): the body is the core's
- * request object and the answer its result object, unchanged. Needs the `compute` permission.
+ * request object and the answer its result object, unchanged (typed against the document in
+ * compute-tasks.ts). Needs the `compute` permission; the work runs in the compute worker pool.
  */
-export function computeRouter(_context: AppContext): Router {
+export function computeRouter(context: AppContext): Router {
   const router = Router();
-  router.post('/locus', authorize('compute'), sizeGuard, (req, res) => {
-    const body: S['LocusResult'] = computeLocus(req.body);
-    res.json(body);
+  router.post('/locus', authorize('compute'), sizeGuard, async (req, res) => {
+    res.type('application/json').send(await compute(context, 'locus', req.body));
   });
-  router.post('/closed-loop', authorize('compute'), sizeGuard, (req, res) => {
-    const body: S['ClosedLoopResult'] = computeClosedLoop(req.body);
-    res.json(body);
+  router.post('/closed-loop', authorize('compute'), sizeGuard, async (req, res) => {
+    res.type('application/json').send(await compute(context, 'closed-loop', req.body));
   });
-  router.post('/design', authorize('compute'), sizeGuard, (req, res) => {
-    const body: S['DesignResult'] = computeDesign(req.body);
-    res.json(body);
+  router.post('/design', authorize('compute'), sizeGuard, async (req, res) => {
+    res.type('application/json').send(await compute(context, 'design', req.body));
   });
   return router;
 }

@@ -1,10 +1,11 @@
 /*
- * The compute routes' work: the core's own functions on the request body, nothing re-implemented. The core
- * validates the body (throwing ValidationError with pointers into it) and bounds its own work.
+ * The compute routes' work: the core's own functions on the request body, nothing re-implemented, run in
+ * the context's worker pool (compute-pool.ts). The core validates the body (throwing ValidationError with
+ * pointers into it, re-created on this thread) and bounds its own work.
  */
-import { closedLoop, designGains, locus, type ClosedLoopResult, type DesignResult, type LocusResult } from '@polewright/locus-core';
-import type { ClosedLoopRequest, DesignRequest, LocusRequest } from '@polewright/locus-core';
+import type { AppContext } from '../context.js';
 import { PayloadTooLargeError } from '../http/errors.js';
+import { type ComputeTask, runTask } from './compute-tasks.js';
 
 /** Largest compute request body in bytes: a degree-60 plant with every option fits in a few kilobytes. */
 export const MAX_COMPUTE_BODY_BYTES = 64 * 1024;
@@ -17,17 +18,12 @@ export function checkComputeSize(contentLength: string | undefined): void {
   }
 }
 
-/** `locus(body)` of the core. */
-export function computeLocus(body: unknown): LocusResult {
-  return locus(body as LocusRequest);
-}
-
-/** `closedLoop(body)` of the core. */
-export function computeClosedLoop(body: unknown): ClosedLoopResult {
-  return closedLoop(body as ClosedLoopRequest);
-}
-
-/** `designGains(body)` of the core. */
-export function computeDesign(body: unknown): DesignResult {
-  return designGains(body as DesignRequest);
+/**
+ * Runs a compute task (`locus`, `closed-loop`, `design`, `loop-locus`) and answers the result as JSON
+ * bytes: in the context's worker pool, or on this thread when the context has none.
+ */
+export async function compute(context: AppContext, task: ComputeTask, payload: unknown): Promise<Buffer> {
+  if (context.compute) return context.compute.run(task, payload);
+  const bytes = runTask(task, payload);
+  return Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
 }

@@ -1,9 +1,9 @@
-import { locus, type LocusResult, type Warning } from '@polewright/locus-core';
 import type { DataSource } from 'typeorm';
 import type { AppContext } from '../context.js';
 import { NotFoundError } from '../http/errors.js';
-import { LocusCache } from './locus-cache.js';
-import { loopPlant, plantNotes, type LoopParts } from './loop-plant.js';
+import { compute } from '../compute/compute.service.js';
+import { type CachedLocus, LocusCache } from './locus-cache.js';
+export { loopLocus } from './loop-locus.js';
 import * as repository from './models.repository.js';
 
 const caches = new WeakMap<DataSource, LocusCache>();
@@ -18,40 +18,43 @@ export function locusCacheOf(context: AppContext): LocusCache {
   return cache;
 }
 
-/**
- * The engine's locus of a loop (compensator × plant), with the notes the core made while normalising the
- * stored plant added when the compensator hid them from the engine.
- */
-export function loopLocus(parts: LoopParts): LocusResult {
-  const result = locus({ plant: loopPlant(parts) });
-  const seen = new Set(result.warnings.map((w) => w.code));
-  const notes: Warning[] = plantNotes(parts).filter((w) => !seen.has(w.code));
-  return notes.length ? { ...result, warnings: [...notes, ...result.warnings] } : result;
-}
-
-/** A served locus: the serialised result and the content hash it was computed from. */
-export interface ServedLocus {
-  readonly text: string;
+/** A served locus: the JSON bytes, their ETag and the content hash they were computed from. */
+export interface ServedLocus extends CachedLocus {
   readonly contentHash: string;
   readonly revision: number;
-  /** Whether the text came from the cache. */
+  /** Whether the answer came from the cache. */
   readonly cached: boolean;
 }
 
+// computations in flight per cache by content hash: concurrent misses of one loop share one engine run
+const inFlight = new WeakMap<LocusCache, Map<string, Promise<CachedLocus>>>();
+
 /**
  * The locus of a model's current revision, from the in-memory cache keyed by the SHA-256 of the loop
- * content when present, else computed by the core and cached. Throws `NotFoundError` for unknown or
- * deleted models.
+ * content when present (one query: the current revision's hash), else computed by the core in the compute
+ * pool and cached. Throws `NotFoundError` for unknown or deleted models.
  */
 export async function modelLocus(context: AppContext, id: string): Promise<ServedLocus> {
   const header = await repository.findLoopHeader(context.dataSource, id);
   if (!header || header.deletedAt !== null) throw new NotFoundError(`Model ${id}`);
+  const served = { contentHash: header.contentHash, revision: header.revision };
   const cache = locusCacheOf(context);
   const hit = cache.get(header.contentHash);
-  if (hit !== undefined) return { text: hit, contentHash: header.contentHash, revision: header.revision, cached: true };
-  const revision = await repository.findRevision(context.dataSource, id, header.revision);
+  if (hit !== undefined) return { ...hit, ...served, cached: true };
+  let pending = inFlight.get(cache);
+  if (!pending) inFlight.set(cache, (pending = new Map()));
+  let computing = pending.get(header.contentHash);
+  if (!computing) {
+    computing = computeEntry(context, id, header.revision, header.contentHash).finally(() => pending.delete(header.contentHash));
+    pending.set(header.contentHash, computing);
+  }
+  return { ...(await computing), ...served, cached: false };
+}
+
+async function computeEntry(context: AppContext, id: string, revisionNumber: number, contentHash: string): Promise<CachedLocus> {
+  const revision = await repository.findRevision(context.dataSource, id, revisionNumber);
   if (!revision) throw new NotFoundError(`Model ${id}`);
-  const text = JSON.stringify(loopLocus(revision));
-  cache.set(header.contentHash, text);
-  return { text, contentHash: header.contentHash, revision: header.revision, cached: false };
+  const entry: CachedLocus = { body: await compute(context, 'loop-locus', { plant: revision.plant, compensator: revision.compensator }), etag: `"${contentHash}"` };
+  locusCacheOf(context).set(contentHash, entry);
+  return entry;
 }

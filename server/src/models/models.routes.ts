@@ -100,9 +100,12 @@ export function modelsRouter(context: AppContext): Router {
   });
   router.get('/models/:id/locus', authorize('models:read'), async (req, res) => {
     const served = await modelLocus(context, String(req.params['id']));
-    res.setHeader('ETag', `"${served.contentHash}"`);
+    res.setHeader('ETag', served.etag);
     res.setHeader('X-Locus-Cache', served.cached ? 'hit' : 'miss');
-    res.type('application/json').send(served.text);
+    res.type('application/json');
+    // the caller already holds this exact result: 304 without a body (req.fresh compares If-None-Match)
+    if (req.fresh) return void res.status(304).end();
+    res.send(served.body);
   });
   return router;
 }

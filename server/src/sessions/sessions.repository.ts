@@ -1,4 +1,5 @@
 import type { EntityManager } from 'typeorm';
+import { forgetToken, forgetUser } from '../auth/token-cache.js';
 import type { AppContext } from '../context.js';
 import { SessionEntity, type SessionRecord } from './session.entity.js';
 
@@ -16,14 +17,16 @@ export async function findSessionByHash(context: AppContext, tokenHash: string):
   return sessions(context).findOneBy({ tokenHash });
 }
 
-/** Revokes one session. */
+/** Revokes one session (and drops its cached principal at once). */
 export async function revokeSession(context: AppContext, id: string, at: string, manager?: EntityManager): Promise<void> {
   await sessions(context, manager).update({ id }, { revokedAt: at });
+  forgetToken(context, id);
 }
 
 /** Revokes every open session of a user (on deactivation). */
 export async function revokeSessionsOfUser(context: AppContext, userId: string, at: string, manager?: EntityManager): Promise<void> {
   await sessions(context, manager).createQueryBuilder().update().set({ revokedAt: at }).where('user_id = :userId AND revoked_at IS NULL', { userId }).execute();
+  forgetUser(context, userId);
 }
 
 /** A session by id, or null. */

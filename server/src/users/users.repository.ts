@@ -1,6 +1,7 @@
 import type { EntityManager } from 'typeorm';
 import type { AppContext } from '../context.js';
 import type { Role } from '../auth/permissions.js';
+import { forgetUser } from '../auth/token-cache.js';
 import { InvitationEntity, type InvitationRecord } from './invitation.entity.js';
 import { UserEntity, type UserRecord, type UserStatus } from './user.entity.js';
 
@@ -34,9 +35,10 @@ export async function insertUser(context: AppContext, user: UserRecord, manager?
   await users(context, manager).insert(user);
 }
 
-/** Changes some fields of a user. */
+/** Changes some fields of a user; drops every cached principal of theirs at once (role or status may have changed). */
 export async function updateUser(context: AppContext, id: string, changes: Partial<Omit<UserRecord, 'id'>>, manager?: EntityManager): Promise<void> {
   await users(context, manager).update({ id }, changes);
+  forgetUser(context, id);
 }
 
 /** Inserts an invitation. */

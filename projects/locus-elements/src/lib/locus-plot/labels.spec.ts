@@ -1,4 +1,4 @@
-import { placeLabels } from './labels';
+import { placeLabels, visibleFixedLabels } from './labels';
 
 const bounds = { x0: 0, y0: 0, x1: 400, y1: 300 };
 
@@ -25,5 +25,14 @@ describe('label placement', () => {
     expect(edge.anchor).toBe('end');
     const crowd = placeLabels(Array.from({ length: 8 }, () => ({ x: 200, y: 150, text: 'K 12.34' })), bounds);
     expect(crowd.filter((l) => !l.visible).length).toBeGreaterThan(0);
+  });
+
+  it('thins out fixed labels that would overlap an earlier one', () => {
+    const shown = visibleFixedLabels([
+      { x: 100, y: 20, text: 'ζ 0.4', anchor: 'start' },
+      { x: 110, y: 20, text: 'ζ 0.2', anchor: 'start' },
+      { x: 200, y: 20, text: 'ζ 0.6', anchor: 'start' },
+    ]);
+    expect(shown).toEqual([true, false, true]);
   });
 });

@@ -59,3 +59,18 @@ export function placeLabels(requests: readonly LabelRequest[], bounds: Box, obst
 function overlaps(a: Box, b: Box): boolean {
   return a.x0 < b.x1 && b.x0 < a.x1 && a.y0 < b.y1 && b.y0 < a.y1;
 }
+
+/**
+ * Which of a row of fixed labels (guide labels: their place is given by the curve) can be shown without
+ * overlapping an earlier one; `anchor` as in SVG text-anchor.
+ */
+export function visibleFixedLabels(labels: readonly { x: number; y: number; text: string; anchor: 'start' | 'end' }[]): boolean[] {
+  const taken: Box[] = [];
+  return labels.map((l) => {
+    const width = l.text.length * CHAR_WIDTH;
+    const box = l.anchor === 'start' ? { x0: l.x, y0: l.y - LINE_HEIGHT, x1: l.x + width, y1: l.y } : { x0: l.x - width, y0: l.y - LINE_HEIGHT, x1: l.x, y1: l.y };
+    if (taken.some((t) => overlaps(t, box))) return false;
+    taken.push(box);
+    return true;
+  });
+}

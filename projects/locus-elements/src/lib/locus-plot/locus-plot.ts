@@ -3,11 +3,13 @@ import {
   ChangeDetectionStrategy,
   Component,
   computed,
+  effect,
   ElementRef,
   inject,
   input,
   linkedSignal,
   signal,
+  untracked,
   viewChild,
   ViewEncapsulation,
   type Signal,
@@ -26,7 +28,7 @@ import { sPlaneGuides, zPlaneGuides } from './guides';
 import { compensatorPoleMarkPath, gainMarkers, groupCoincident, poleMarkPath } from './markers';
 import { CompensatorEditor } from './compensator-editor';
 import { PlotExport } from './export';
-import { placeLabels } from './labels';
+import { placeLabels, visibleFixedLabels } from './labels';
 import { fitExtent, frameOf, unitsPerPixel, visibleExtent, type Extent, type Frame } from './plot-frame';
 import { plotKeyAction } from './plot-keys';
 import { HIT, PlotPointer } from './plot-pointer';
@@ -49,7 +51,7 @@ let nextPlot = 1;
   selector: 'pwl-locus-plot',
   imports: [PlotZoom, PlotAxis],
   templateUrl: './locus-plot.html',
-  styleUrls: ['../theme/theme.css', './locus-plot.css'],
+  styleUrls: ['../theme/theme.css', './locus-plot.css', './plot-panel.css'],
   encapsulation: ViewEncapsulation.ShadowDom,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -90,7 +92,11 @@ export class LocusPlot extends LoopElement {
   protected readonly guides = computed(() => {
     const frame = this.frame();
     const all = this.plane() === 's' ? sPlaneGuides(this.view()) : zPlaneGuides();
-    return all.map((g) => ({ kind: g.kind, d: planePath(g.points, frame), label: g.label, anchor: g.anchor ?? 'start', dy: g.below ? 12 : -3, at: g.labelAt ? [frame.x(g.labelAt.re), frame.y(g.labelAt.im)] : null }));
+    const guides = all.map((g) => ({ kind: g.kind, d: planePath(g.points, frame), label: g.label, anchor: g.anchor ?? 'start', dy: g.below ? 12 : -3, at: g.labelAt ? [frame.x(g.labelAt.re), frame.y(g.labelAt.im)] : null }));
+    // crowded guide labels (a small plot) are thinned out rather than drawn over each other
+    const labelled = guides.filter((g) => g.at && g.label);
+    const shown = visibleFixedLabels(labelled.map((g) => ({ x: (g.at as number[])[0] + (g.anchor === 'end' ? -3 : 3), y: (g.at as number[])[1] + g.dy, text: g.label, anchor: g.anchor })));
+    return guides.map((g) => (g.at && g.label && !shown[labelled.indexOf(g)] ? { ...g, label: '' } : g));
   });
   protected readonly regionPath = computed(() => {
     const result = this.result();
@@ -182,6 +188,11 @@ export class LocusPlot extends LoopElement {
 
   constructor() {
     super();
+    // a model from elsewhere (attribute, API, another element) gets a fresh view; this plot's own edits keep it
+    effect(() => {
+      const model = this.state().model();
+      if (model !== untracked(this.editor.ownModel)) untracked(() => this.zoomer()?.resetZoom());
+    });
     // the custom element exposes the export methods to the host page
     Object.assign(this.host, { exportSvg: () => this.exportSvg(), exportPng: () => this.exportPng() });
   }
