@@ -7,6 +7,7 @@ export { closedLoop } from './response/closed-loop';
 export { designGains } from './design/design-gains';
 export { normalizePlant, MAX_DEGREE, MAX_PADE_ORDER, DEFAULT_PADE_ORDER } from './plant/normalize';
 export { ValidationError, type FieldIssue } from './errors';
+export { loopPlant, plantNotes, readCompensator, MAX_COMPENSATOR_ROOTS, type Compensator, type LoopParts } from './plant/compensator';
 export { CAUTION } from './caution';
 export type { Complex } from './complex/complex';
 export type { Plant, CoefficientPlant, FactoredPlant, ExpressionPlant, PlantCommon, Domain, NormalizedPlant, Warning } from './types/plant';

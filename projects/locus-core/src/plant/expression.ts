@@ -1,4 +1,5 @@
-import { parse, type MathNode } from 'mathjs';
+import type { MathNode } from 'mathjs';
+import { parse } from './math';
 import { ValidationError } from '../errors';
 import { add, multiply, power, scale, type Polynomial } from '../polynomial/polynomial';
 import { MAX_DEGREE } from './limits';

@@ -1,4 +1,4 @@
-import { expm, matrix } from 'mathjs';
+import { expm, matrix } from './math';
 import type { StateSpace } from './state-space';
 
 /** Exact sampled model of a state-space model under a held input over one interval h. */
