@@ -1,9 +1,10 @@
 // REST API load figures: prints, asserts nothing. Starts the server (dist/server when built, else the
 // sources through tsx) on a temporary database with rate limits off, signs in as a bench admin and
 // drives it with autocannon: GET /api/health, POST /api/v1/locus on a degree-8 plant, and
-// GET /api/v1/models/{id}/locus (served from the in-memory locus cache). Samples the server's resident
-// memory over the whole run. Targets (issue 3): compute ≥ 30 % of health throughput with p99 < 50 ms and no
-// errors; cached ≥ 70 %; memory flat. BENCH_SECONDS (default 20) and BENCH_CONNECTIONS (default 10) tune it.
+// GET /api/v1/models/{id}/locus (served from the in-memory locus cache). Samples the server's resident memory
+// (compute workers included) every second, and at start and end after a forced settle (GC on SIGUSR2). Targets
+// (issue 3): compute ≥ 30 % of health throughput with p99 < 50 ms and no errors; cached ≥ 70 %; memory flat.
+// BENCH_SECONDS (default 20), BENCH_CONNECTIONS (default 10) and COMPUTE_WORKERS tune it.
 import autocannon from 'autocannon';
 import { spawn } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
@@ -46,7 +47,8 @@ async function main() {
   const built = join(root, 'dist', 'server', 'main.js');
   const useBuilt = process.env.BENCH_SERVER === 'dist';
   if (useBuilt && !existsSync(built)) throw new Error('dist/server/main.js is missing: npm run build:server first');
-  const args = useBuilt ? [built] : ['--import', 'tsx', join(root, 'server', 'src', 'main.ts')];
+  // --expose-gc: main.ts then collects garbage on SIGUSR2, for the settled memory figures
+  const args = useBuilt ? ['--expose-gc', built] : ['--expose-gc', '--import', 'tsx', join(root, 'server', 'src', 'main.ts')];
   const email = 'bench-admin@polewright.example';
   const password = randomBytes(18).toString('base64url');
   const env = { ...process.env, PORT: String(port), DATABASE_PATH: join(folder, 'bench.sqlite'), RATE_LIMIT_PER_MINUTE: '0', POLEWRIGHT_QUIET: '1', NODE_ENV: 'production', KEY_EXPIRY_CHECK_MS: '0', POLEWRIGHT_ADMIN_EMAIL: email, POLEWRIGHT_ADMIN_PASSWORD: password, POLEWRIGHT_DEMO: 'on' };
@@ -72,8 +74,15 @@ async function main() {
     const warm = await fetch(`${base}/api/v1/models/${modelId}/locus`, { headers: auth });
     const cachedBytes = (await warm.text()).length;
 
+    // memory: sampled every second; start and end are taken after a forced settle (GC on SIGUSR2, 2 s idle)
+    const settle = async () => {
+      server.kill('SIGUSR2');
+      await new Promise((r) => setTimeout(r, 2000));
+      return residentMb(server.pid);
+    };
+    const settledStart = await settle();
     const memory = [];
-    const sampler = setInterval(() => memory.push(residentMb(server.pid)), 250);
+    const sampler = setInterval(() => memory.push(residentMb(server.pid)), 1000);
     memory.push(residentMb(server.pid));
     const run = async (title, options) => {
       const from = memory.length;
@@ -90,6 +99,7 @@ async function main() {
     results.push(await run(`GET /api/v1/models/{id}/locus (cached, ${Math.round(cachedBytes / 1024)} KB)`, { path: `/api/v1/models/${modelId}/locus`, headers: auth }));
     clearInterval(sampler);
     memory.push(residentMb(server.pid));
+    const settledEnd = await settle();
 
     console.log(`\nPolewright API load: ${seconds} s per route, ${connections} connections, ${useBuilt ? 'dist/server' : 'tsx sources'}, node ${process.version}`);
     console.log('route'.padEnd(52) + 'req/s'.padStart(9) + 'p50 ms'.padStart(9) + 'p99 ms'.padStart(9) + 'errors'.padStart(9) + '  RSS max/end MB');
@@ -102,8 +112,9 @@ async function main() {
     console.log(`compute/health ${(100 * compute / health).toFixed(1)} % (target ≥ 30 %, p99 < 50 ms, 0 errors); cached/health ${(100 * cached / health).toFixed(1)} % (target ≥ 70 %); token-only reference /me is ${(100 * me / health).toFixed(1)} % of health`);
     const finite = memory.filter(Number.isFinite);
     if (finite.length) {
-      console.log(`server resident memory: start ${finite[0].toFixed(1)} MB, end ${finite.at(-1).toFixed(1)} MB, max ${Math.max(...finite).toFixed(1)} MB (${finite.length} samples)`);
+      console.log(`server resident memory (every 1 s, compute workers included): start ${finite[0].toFixed(1)} MB, end ${finite.at(-1).toFixed(1)} MB, max ${Math.max(...finite).toFixed(1)} MB (${finite.length} samples)`);
     }
+    console.log(`after a forced settle (GC, 2 s idle): start ${settledStart.toFixed(1)} MB, end ${settledEnd.toFixed(1)} MB, end − start ${(settledEnd - settledStart >= 0 ? '+' : '') + (settledEnd - settledStart).toFixed(1)} MB`);
   } finally {
     server.kill('SIGTERM');
     await new Promise((r) => (server.exitCode !== null ? r() : server.once('exit', r)));

@@ -7,7 +7,7 @@ import { authenticate } from './auth/authenticate.js';
 import { type AppContext, logLine } from './context.js';
 import { embedTokensRouter } from './embed-tokens/embed-tokens.routes.js';
 import { healthRouter } from './health/health.routes.js';
-import { embedCorsHeaders, embedPreflight } from './http/embed-cors.js';
+import { embedCorsHeaders, embedPreflight, embedRefusalCors } from './http/embed-cors.js';
 import { problemHandler, RouteNotFoundError } from './http/problem.js';
 import { rateLimits } from './http/rate-limit.js';
 import { requestId } from './http/request-id.js';
@@ -45,7 +45,7 @@ export function createApp(context: AppContext): Express {
   app.use(requestId());
   // plain HTTP is the default deployment here: no upgrade-insecure-requests (it breaks Swagger UI off localhost)
   app.use(helmet({ contentSecurityPolicy: { directives: { upgradeInsecureRequests: null } }, crossOriginResourcePolicy: { policy: 'cross-origin' } }));
-  app.use('/api', embedPreflight());
+  app.use('/api', embedPreflight(), embedRefusalCors());
   for (const limiter of rateLimits(context.config.rateLimitPerMinute)) app.use('/api', limiter);
   app.use('/api', express.json({ limit: context.config.jsonBodyLimit, type: ['application/json', 'application/*+json'] }));
   app.use('/api', authenticate(context), embedCorsHeaders());

@@ -15,6 +15,8 @@ export interface ComputePool {
   readonly size: number;
   /** Runs a task; resolves with its JSON bytes, rejects with the core's ValidationError (re-created) or an Error. */
   run(task: ComputeTask, payload: unknown): Promise<Buffer>;
+  /** Starts every worker now instead of on first use (the server does, so its memory is steady from the start). */
+  warm(): void;
   /** Stops every worker; queued and running tasks are rejected. */
   close(): Promise<void>;
 }
@@ -99,6 +101,10 @@ export function createComputePool(size: number, entry: URL = workerEntry()): Com
         queue.push({ message: { id: nextId++, task, payload }, resolve, reject });
         dispatch();
       });
+    },
+    warm() {
+      // idle workers do not keep the process alive
+      while (!closed && slots.length < limit) spawn().worker.unref();
     },
     async close() {
       closed = true;

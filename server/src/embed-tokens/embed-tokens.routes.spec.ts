@@ -45,7 +45,9 @@ describe('embed tokens', () => {
     expect((await as(api().get('/api/v1/models').set('Origin', PAGE))).status).toBe(403);
     const foreign = await as(api().get(`/api/v1/models/${modelA}`).set('Origin', FOREIGN));
     expect(foreign.status).toBe(403);
-    expect(foreign.headers['access-control-allow-origin']).toBeUndefined();
+    // the refusal is readable there (embedRefusalCors), the model is not
+    expect(foreign.headers['access-control-allow-origin']).toBe(FOREIGN);
+    expect(foreign.body.id).toBeUndefined();
     expect((await as(api().get(`/api/v1/models/${modelA}`))).status).toBe(403);
     const before = (await api().get(`/api/v1/models/${modelA}`).auth(server.tokens.engineer, { type: 'bearer' })).body;
     const put = await as(api().put(`/api/v1/models/${modelA}`).set('Origin', PAGE).set('If-Match', `"${modelA}-r${before.revision}"`)).send({ ...before, name: 'changed by a widget' });
@@ -64,6 +66,36 @@ describe('embed tokens', () => {
     } finally {
       offsetMs = 0;
     }
+  });
+
+  it('lets the element read the problem of a refused model or locus read from any origin, and nothing else', async () => {
+    const { body } = await issue({ modelIds: [modelA], origins: [PAGE], ttlSeconds: 60 });
+    offsetMs = 61_000;
+    try {
+      for (const path of [`/api/v1/models/${modelA}`, `/api/v1/models/${modelA}/locus`]) {
+        const expired = await api().get(path).set('Origin', PAGE).auth(body.token, { type: 'bearer' });
+        expect(expired.status).toBe(401);
+        expect(expired.headers['content-type']).toMatch(/^application\/problem\+json/);
+        expect(expired.body.detail).toMatch(/expired/);
+        expect(expired.headers['access-control-allow-origin']).toBe(PAGE);
+        expect(expired.headers['vary']).toMatch(/Origin/);
+      }
+    } finally {
+      offsetMs = 0;
+    }
+    const unknown = await api().get(`/api/v1/models/${modelA}/locus`).set('Origin', FOREIGN).auth('pwe_' + 'A'.repeat(43), { type: 'bearer' });
+    expect(unknown.status).toBe(401);
+    expect(unknown.headers['access-control-allow-origin']).toBe(FOREIGN);
+    const missing = await api().get('/api/v1/models/00000000-0000-4000-8000-000000000000').set('Origin', FOREIGN).auth(server.tokens.viewer, { type: 'bearer' });
+    expect(missing.status).toBe(404);
+    expect(missing.headers['access-control-allow-origin']).toBe(FOREIGN);
+    // other routes and other methods stay closed to foreign pages, refused or not
+    const revisions = await api().get(`/api/v1/models/${modelA}/revisions`).set('Origin', FOREIGN).auth(body.token, { type: 'bearer' });
+    expect(revisions.status).toBe(403);
+    expect(revisions.headers['access-control-allow-origin']).toBeUndefined();
+    const del = await api().delete(`/api/v1/models/${modelA}`).set('Origin', FOREIGN);
+    expect(del.status).toBe(401);
+    expect(del.headers['access-control-allow-origin']).toBeUndefined();
   });
 
   it('answers the tokenless CORS preflight of a GET on a model route for any origin, and nothing else', async () => {
@@ -94,7 +126,7 @@ describe('embed tokens', () => {
     expect(unknown.status).toBe(404);
     expect(unknown.body.detail).toContain('no-such-model');
     const count = (await server.context.dataSource.query('SELECT COUNT(*) AS n FROM embed_tokens')) as { n: number }[];
-    const issuedSoFar = 4;
+    const issuedSoFar = 5;
     expect(count[0]?.n).toBe(issuedSoFar);
   });
 

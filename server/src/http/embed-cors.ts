@@ -39,3 +39,33 @@ export function embedCorsHeaders(): RequestHandler {
     next();
   };
 }
+
+// Only the two reads the browser element makes: the model and its locus (not the export, a list route).
+const ELEMENT_READ = /^\/api\/v1\/models\/(?!export$|import$)[^/]+(\/locus)?$/;
+const REFUSALS = new Set([401, 403, 404, 429]);
+
+/**
+ * Lets the browser element read the problem body of a refused embed read (401 unknown or expired token,
+ * 403, 404, 429), so it can say "token expired" instead of "blocked by cross-origin rules": on GET/HEAD of
+ * `/api/v1/models/{id}` and `/api/v1/models/{id}/locus` carrying an `Origin`, an error answer gets
+ * `Access-Control-Allow-Origin: <that origin>` and `Vary: Origin`. Safe because a refusal body reveals
+ * nothing the caller did not send (its own token's state, the id it asked for, the origin it came from):
+ * no model data, no other token's existence. Successful reads stay restricted to the token's own origins
+ * (`embedCorsHeaders`); mounted before the rate limits so that their 429 is readable too.
+ */
+export function embedRefusalCors(): RequestHandler {
+  return (req, res, next) => {
+    const origin = req.headers.origin;
+    if (!origin || !READ_METHODS.has(req.method) || !ELEMENT_READ.test(req.originalUrl.split('?')[0] ?? '')) return next();
+    const writeHead = res.writeHead;
+    res.writeHead = function (this: typeof res, ...args: Parameters<typeof writeHead>) {
+      const status = typeof args[0] === 'number' ? args[0] : res.statusCode;
+      if (REFUSALS.has(status) && !res.getHeader('Access-Control-Allow-Origin')) {
+        res.setHeader('Access-Control-Allow-Origin', origin);
+        res.vary('Origin');
+      }
+      return writeHead.apply(this, args);
+    } as typeof writeHead;
+    next();
+  };
+}

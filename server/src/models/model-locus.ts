@@ -3,6 +3,7 @@ import type { AppContext } from '../context.js';
 import { NotFoundError } from '../http/errors.js';
 import { compute } from '../compute/compute.service.js';
 import { type CachedLocus, LocusCache } from './locus-cache.js';
+import { loopHeaderCacheOf } from './loop-header-cache.js';
 export { loopLocus } from './loop-locus.js';
 import * as repository from './models.repository.js';
 
@@ -31,11 +32,11 @@ const inFlight = new WeakMap<LocusCache, Map<string, Promise<CachedLocus>>>();
 
 /**
  * The locus of a model's current revision, from the in-memory cache keyed by the SHA-256 of the loop
- * content when present (one query: the current revision's hash), else computed by the core in the compute
+ * content when present (its header: one query, or none within 2 s of the last), else computed by the core in the compute
  * pool and cached. Throws `NotFoundError` for unknown or deleted models.
  */
 export async function modelLocus(context: AppContext, id: string): Promise<ServedLocus> {
-  const header = await repository.findLoopHeader(context.dataSource, id);
+  const header = await loopHeader(context, id);
   if (!header || header.deletedAt !== null) throw new NotFoundError(`Model ${id}`);
   const served = { contentHash: header.contentHash, revision: header.revision };
   const cache = locusCacheOf(context);
@@ -49,6 +50,17 @@ export async function modelLocus(context: AppContext, id: string): Promise<Serve
     pending.set(header.contentHash, computing);
   }
   return { ...(await computing), ...served, cached: false };
+}
+
+/** The model's loop header, from the short-lived memo (loop-header-cache.ts) or one query. */
+async function loopHeader(context: AppContext, id: string): Promise<repository.LoopHeader | null> {
+  const memo = loopHeaderCacheOf(context.dataSource);
+  const known = memo.get(id);
+  if (known) return known;
+  const generation = memo.generation;
+  const header = await repository.findLoopHeader(context.dataSource, id);
+  if (header) memo.set(id, header, generation);
+  return header;
 }
 
 async function computeEntry(context: AppContext, id: string, revisionNumber: number, contentHash: string): Promise<CachedLocus> {

@@ -4,6 +4,7 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import type { Compensator, ModelContent, ModelDesign, ModelQuery, Person, RevisionSummary } from './model.js';
 import type { Plant } from '@polewright/locus-core';
+import { loopHeaderCacheOf } from './loop-header-cache.js';
 
 type Db = DataSource | EntityManager;
 
@@ -116,6 +117,7 @@ export async function advanceModel(manager: EntityManager, id: string, expectedR
   );
   if (result !== 1) return false;
   await insertRevision(manager, id, expectedRevision + 1, write);
+  loopHeaderCacheOf(manager.connection).forget(id);
   return true;
 }
 
@@ -124,7 +126,9 @@ export async function setDeleted(manager: EntityManager, id: string, deletedAt: 
   const sql = deletedAt === null
     ? `UPDATE models SET deleted_at = NULL WHERE id = ? AND deleted_at IS NOT NULL`
     : `UPDATE models SET deleted_at = ? WHERE id = ? AND deleted_at IS NULL`;
-  return (await affected(manager, sql, deletedAt === null ? [id] : [deletedAt, id])) === 1;
+  const changed = (await affected(manager, sql, deletedAt === null ? [id] : [deletedAt, id])) === 1;
+  if (changed) loopHeaderCacheOf(manager.connection).forget(id);
+  return changed;
 }
 
 /** The history of a model, newest first. */

@@ -243,6 +243,20 @@ describe('models routes', () => {
       expect(after.body.normalizedPlant.denominator).toHaveLength(1 + 2 + 1 + 3); // plant, compensator pole, Padé order 3
     });
 
+    it('answers If-None-Match with the current ETag by 304 without a body, and a stale one with the new result', async () => {
+      const model = await create();
+      const first = await api().get(`/models/${model.id}/locus`).expect(200);
+      const etag = first.headers['etag'] as string;
+      expect(etag).toMatch(/^"[0-9a-f]{64}"$/);
+      const same = await api().get(`/models/${model.id}/locus`).set('If-None-Match', etag).expect(304);
+      expect(same.text).toBe('');
+      expect(same.headers['etag']).toBe(etag);
+      await api().put(`/models/${model.id}`).set('If-Match', `"${model.id}-r1"`).send({ ...NEW_MODEL, plant: { expression: '2/((s+1)*(s+4))' } }).expect(200);
+      const stale = await api().get(`/models/${model.id}/locus`).set('If-None-Match', etag).expect(200);
+      expect(stale.headers['etag']).not.toBe(etag);
+      expect(stale.body.normalizedPlant.denominator).toHaveLength(3);
+    });
+
     it('is readable with an embed token for its model only, from its origin', async () => {
       const mine = await create();
       const other = await create();
@@ -260,6 +274,21 @@ describe('models routes', () => {
       const model = await create();
       await api().delete(`/models/${model.id}`).expect(204);
       await api().get(`/models/${model.id}/locus`).expect(404);
+    });
+
+    it('follows a delete, a restore and a change at once although it was just served from memory', async () => {
+      const model = await create();
+      const first = await api().get(`/models/${model.id}/locus`).expect(200);
+      await api().get(`/models/${model.id}/locus`).expect(200);
+      await api().delete(`/models/${model.id}`).expect(204);
+      await api().get(`/models/${model.id}/locus`).expect(404);
+      await api().post(`/models/${model.id}/restore`).expect(200);
+      const back = await api().get(`/models/${model.id}/locus`).expect(200);
+      expect(back.headers['etag']).toBe(first.headers['etag']);
+      await api().put(`/models/${model.id}`).set('If-Match', `"${model.id}-r1"`).send({ ...NEW_MODEL, plant: { expression: '3/((s+2)*(s+5))' } }).expect(200);
+      const changed = await api().get(`/models/${model.id}/locus`).expect(200);
+      expect(changed.headers['etag']).not.toBe(first.headers['etag']);
+      expect(changed.headers['x-locus-cache']).toBe('miss');
     });
   });
 });
