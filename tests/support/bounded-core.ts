@@ -33,8 +33,14 @@ const { createRequire } = require('node:module');
 const load = new Function('module', 'exports', 'require', workerData.code);
 const module = { exports: {} };
 const realRequire = createRequire(workerData.entry);
-// without expressions the parser is not loaded (it is large); an expression plant then fails loudly
-const noParser = { parse() { throw new Error('expression plants are not loaded in this bounded worker'); } };
+// without expressions mathjs is not loaded (it is large): the core's slim instance (plant/math.ts) then gets
+// functions that fail loudly, so an expression plant or a zero-order hold cannot pass unnoticed
+const noParser = {
+  create() {
+    const missing = () => { throw new Error('expression plants are not loaded in this bounded worker'); };
+    return { parse: missing, expm: missing, matrix: missing };
+  },
+};
 load(module, module.exports, (id) => (id === 'mathjs' && !workerData.expressions ? noParser : realRequire(id)));
 const core = module.exports;
 parentPort.on('message', (message) => {

@@ -46,7 +46,7 @@ describe('compute pool', () => {
     const out = resolve(REPO_ROOT, 'node_modules', '.cache', `polewright-compute-pool-spec-${process.pid}`);
     cleanup.push(() => rmSync(out, { recursive: true, force: true }));
     const src = join(REPO_ROOT, 'server', 'src');
-    const files = ['compute/compute-pool.ts', 'compute/compute-worker.ts', 'compute/compute-tasks.ts', 'models/loop-locus.ts', 'models/loop-plant.ts', 'models/compensator.ts'];
+    const files = ['compute/compute-pool.ts', 'compute/compute-worker.ts', 'compute/compute-tasks.ts', 'models/loop-locus.ts'];
     mkdirSync(out, { recursive: true });
     writeFileSync(join(out, 'package.json'), '{ "type": "module" }\n');
     await build({ entryPoints: files.map((f) => join(src, f)), outdir: out, outbase: src, format: 'esm', platform: 'node', bundle: false, logLevel: 'silent' });

@@ -4,7 +4,7 @@
  */
 import { closedLoop, designGains, locus, type ClosedLoopRequest, type DesignRequest, type LocusRequest } from '@polewright/locus-core';
 import { loopLocus } from '../models/loop-locus.js';
-import type { LoopParts } from '../models/loop-plant.js';
+import type { LoopParts } from '@polewright/locus-core';
 import type { components } from '../openapi/api-types.js';
 
 type S = components['schemas'];

@@ -41,4 +41,19 @@ describe('static front ends', () => {
   it('skips a missing folder with a log line', () => {
     expect(logs).toEqual(['static: demo/embed not built, /embed-demo not served']);
   });
+
+  it('sends a visitor of / to the element gallery while the console is not built', async () => {
+    const bare = mkdtempSync(join(tmpdir(), 'polewright-static-'));
+    try {
+      mkdirSync(join(bare, 'dist', 'elements'), { recursive: true });
+      writeFileSync(join(bare, 'dist', 'elements', 'index.html'), '<html><body>gallery</body></html>');
+      const withoutConsole = express();
+      mountStaticSites(withoutConsole, () => undefined, bare);
+      const res = await request(withoutConsole).get('/');
+      expect(res.status).toBe(302);
+      expect(res.headers['location']).toBe('/elements/');
+    } finally {
+      rmSync(bare, { recursive: true, force: true });
+    }
+  });
 });

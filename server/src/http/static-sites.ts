@@ -35,6 +35,8 @@ export function mountStaticSites(app: Express, log: (message: string) => void, r
     const folder = existsSync(join(base, 'browser', 'index.html')) ? join(base, 'browser') : base;
     if (!existsSync(folder)) {
       log(`static: ${site.folder} not built, ${site.mount} not served`);
+      // until the console is built, a person opening the server's address lands on the element gallery
+      if (site.mount === '/' && existsSync(resolve(root, 'dist/elements'))) app.get('/', (_req, res) => res.redirect(302, '/elements/'));
       continue;
     }
     const csp = helmet.contentSecurityPolicy({ directives: { upgradeInsecureRequests: null, scriptSrc: ["'self'", ...inlineScriptHashes(folder)] } });

@@ -1,5 +1,5 @@
 import { createHash } from 'node:crypto';
-import type { LoopParts } from './loop-plant.js';
+import type { LoopParts } from '@polewright/locus-core';
 
 /**
  * JSON with object keys sorted at every level, so that equal content always gives equal text.

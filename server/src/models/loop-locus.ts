@@ -1,5 +1,4 @@
-import { locus, type LocusResult, type Warning } from '@polewright/locus-core';
-import { loopPlant, plantNotes, type LoopParts } from './loop-plant.js';
+import { locus, loopPlant, plantNotes, type LocusResult, type LoopParts, type Warning } from '@polewright/locus-core';
 
 /**
  * The engine's locus of a loop (compensator × plant), with the notes the core made while normalising the

@@ -1,7 +1,5 @@
-import { designGains, normalizePlant, ValidationError, type DesignTargets, type Plant } from '@polewright/locus-core';
+import { designGains, loopPlant, normalizePlant, readCompensator, ValidationError, type Compensator, type DesignTargets, type Plant } from '@polewright/locus-core';
 import { InputError, type InputIssue as Issue } from '../http/errors.js';
-import { readCompensator } from './compensator.js';
-import { loopPlant } from './loop-plant.js';
 import type { ModelDesign, ModelInput } from './model.js';
 
 /** Limits of the editable fields (see CONTRACTS.md). */
@@ -25,7 +23,7 @@ export function readModelInput(body: unknown): ModelInput {
   const comment = readText(record['comment'] ?? '', '/comment', 0, MODEL_LIMITS.comment, issues, false);
   const tags = readTags(record['tags'] ?? [], issues);
   const plant = readPlant(record['plant'], issues);
-  const compensator = readCompensator(record['compensator'], '/compensator', issues);
+  const compensator = readCompensatorInto(record['compensator'], issues);
   const design = readDesign(record['design'], issues);
   if (plant !== null && !issues.some((i) => i.pointer.startsWith('/compensator'))) checkLoop(plant, compensator, design, issues);
   if (issues.length > 0 || plant === null) throw new InputError(issues);
@@ -108,5 +106,16 @@ function checkLoop(plant: Plant, compensator: ModelInput['compensator'], design:
       if (issue.pointer.startsWith('/targets')) issues.push({ pointer: `/design${issue.pointer}`, detail: issue.detail });
       else issues.push({ pointer: '/compensator', detail: `makes the loop (compensator × plant) unusable: ${issue.detail}` });
     }
+  }
+}
+
+/** The core's compensator check, its field issues collected with the others instead of thrown. */
+function readCompensatorInto(value: unknown, issues: Issue[]): Compensator | null {
+  try {
+    return readCompensator(value, '/compensator');
+  } catch (error) {
+    if (!(error instanceof ValidationError)) throw error;
+    issues.push(...error.issues);
+    return null;
   }
 }

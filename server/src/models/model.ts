@@ -1,11 +1,7 @@
-import type { Complex, DesignTargets, Plant } from '@polewright/locus-core';
+import type { Compensator, DesignTargets, Plant } from '@polewright/locus-core';
 
-/** The compensator in series with the plant, as zeros, poles and gain in the loop's domain (after normalisation). */
-export interface Compensator {
-  readonly zeros: readonly Complex[];
-  readonly poles: readonly Complex[];
-  readonly gain: number;
-}
+/** The compensator in series with the plant (zeros, poles and gain in the loop's domain): the core's form. */
+export type { Compensator } from '@polewright/locus-core';
 
 /** The gain chosen for a loop and the targets it was chosen against. */
 export interface ModelDesign {
