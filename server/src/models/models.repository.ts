@@ -2,21 +2,14 @@
  * SQL of the models feature. Every function returns plain records; parameters are always bound.
  */
 import type { DataSource, EntityManager } from 'typeorm';
-import type { Compensator, ModelContent, ModelDesign, ModelQuery, Person, RevisionSummary } from './model.js';
+import type { Compensator, Model, ModelContent, ModelDesign, ModelQuery, Person, RevisionSummary } from './model.js';
 import type { Plant } from '@polewright/locus-core';
 import { loopHeaderCacheOf } from './loop-header-cache.js';
 
 type Db = DataSource | EntityManager;
 
 /** A stored model with the content of its current revision. */
-export interface ModelRecord extends ModelContent {
-  readonly id: string;
-  readonly revision: number;
-  readonly createdAt: string;
-  readonly updatedAt: string;
-  readonly createdBy: Person | null;
-  readonly updatedBy: Person | null;
-  readonly deletedAt: string | null;
+export interface ModelRecord extends Model {
   readonly contentHash: string;
 }
 
