@@ -8,6 +8,7 @@ import { type AppContext, logLine } from './context.js';
 import { embedTokensRouter } from './embed-tokens/embed-tokens.routes.js';
 import { healthRouter } from './health/health.routes.js';
 import { embedCorsHeaders, embedPreflight, embedRefusalCors } from './http/embed-cors.js';
+import { invitationPageRouter } from './http/invitation-page.js';
 import { problemHandler, RouteNotFoundError } from './http/problem.js';
 import { rateLimits } from './http/rate-limit.js';
 import { requestId } from './http/request-id.js';
@@ -65,6 +66,8 @@ export function createApp(context: AppContext): Express {
   app.use('/api', healthRouter(context));
   app.use('/api/v1', apiV1(context));
   app.use('/api', (req, _res, next) => next(new RouteNotFoundError(req.method, req.originalUrl.split('?')[0] ?? '/')));
+  // the link of invitation e-mails, until the console takes the route over (http/invitation-page.ts)
+  app.use(invitationPageRouter(context));
   mountStaticSites(app, log);
   app.use((req, _res, next) => next(new RouteNotFoundError(req.method, req.originalUrl.split('?')[0] ?? '/')));
   app.use(problemHandler((message, error) => (context.log ?? console.error)(`${message}: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}`)));

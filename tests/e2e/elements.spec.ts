@@ -103,6 +103,25 @@ describe('pw- elements on a plain HTML page', () => {
     expect(problems).toEqual({ exceptions: [], consoleErrors: [] });
   });
 
+  it('take the gain back from the page through setGain after the user moved it', async () => {
+    await open('set-gain', `<pw-gain-control id="gain" loop="reset" model="${CUBIC}"></pw-gain-control>
+      <pw-pole-table id="poles" loop="reset"></pw-pole-table>`);
+    await page.evaluate(() => Object.assign(document.getElementById('gain') as HTMLElement, { gain: 3 }));
+    await expect.poll(() => inside(page, 'poles', 'caption').textContent()).toBe('Closed-loop poles at K = 3 — stable');
+    const field = inside(page, 'gain', 'input.field');
+    await field.fill('5');
+    await field.press('Enter');
+    await expect.poll(() => inside(page, 'poles', 'caption').textContent()).toBe('Closed-loop poles at K = 5 — stable');
+    // the property already holds 3, so setting it again changes nothing (input semantics); setGain does
+    await page.evaluate(() => Object.assign(document.getElementById('gain') as HTMLElement, { gain: 3 }));
+    expect(await page.evaluate(() => (document.getElementById('gain') as HTMLElement & { setGain(k: number): boolean }).setGain(3))).toBe(true);
+    await expect.poll(() => inside(page, 'poles', 'caption').textContent()).toBe('Closed-loop poles at K = 3 — stable');
+    expect(await field.inputValue()).toBe('3');
+    const events = await recordedEvents(page);
+    expect(events).toEqual([{ type: 'pw-gain-change', detail: { gain: 5, loop: 'reset' }, target: 'gain' }]);
+    expect(problems).toEqual({ exceptions: [], consoleErrors: [] });
+  });
+
   it('work from the keyboard: Tab to the slider, arrows and End move the gain, the field takes a typed gain', async () => {
     await open('keyboard', `<pw-gain-control id="gain" loop="keys" model="${CUBIC}" gain="1"></pw-gain-control>
       <pw-pole-table id="poles" loop="keys"></pw-pole-table>`);

@@ -42,8 +42,9 @@ export function mountStaticSites(app: Express, log: (message: string) => void, r
     const csp = helmet.contentSecurityPolicy({ directives: { upgradeInsecureRequests: null, scriptSrc: ["'self'", ...inlineScriptHashes(folder)] } });
     app.use(site.mount, csp, express.static(folder, { index: 'index.html', fallthrough: true }));
     if (site.spa && existsSync(join(folder, 'index.html'))) {
-      // client-side routes of the console: any other GET outside /api gets its index.html
-      app.get(/^\/(?!api(\/|$)|elements(\/|$)|embed-demo(\/|$)).*/, csp, (_req, res) => res.sendFile(join(folder, 'index.html')));
+      // client-side routes of the console: any other GET outside /api gets its index.html. /invitations/…
+      // stays with the invitation page (http/invitation-page.ts) unless the console takes that route over.
+      app.get(/^\/(?!api(\/|$)|elements(\/|$)|embed-demo(\/|$)|invitations(\/|$)).*/, csp, (_req, res) => res.sendFile(join(folder, 'index.html')));
     }
   }
 }

@@ -9,6 +9,7 @@ import { inTransaction } from '../db/transaction.js';
 import { ConflictError, NotFoundError } from '../http/problem.js';
 import { type IssuedSession, openSession } from '../sessions/sessions.service.js';
 import { revokeSessionsOfUser } from '../sessions/sessions.repository.js';
+import type { InvitationRecord } from './invitation.entity.js';
 import type { UserRecord, UserStatus } from './user.entity.js';
 import {
   countUsers,
@@ -60,13 +61,28 @@ export async function inviteUser(context: AppContext, actor: Principal, input: I
   return { user, invitationExpiresAt: expiresAt };
 }
 
+/** Whether an invitation can still be accepted (`open`), or why not. */
+export type InvitationState = 'open' | 'used' | 'expired' | 'unknown';
+
+function stateOf(invitation: InvitationRecord | null, iso: string): InvitationState {
+  if (!invitation) return 'unknown';
+  if (invitation.acceptedAt) return 'used';
+  return invitation.expiresAt <= iso ? 'expired' : 'open';
+}
+
+/** The state of the invitation behind a token (the invitation page shows it before asking for a password). */
+export async function invitationState(context: AppContext, token: string): Promise<InvitationState> {
+  return stateOf(await findInvitationByHash(context, hashToken(token)), now(context).toISOString());
+}
+
 /** Completes sign-up from an invitation token: sets name and password, activates the user and opens a session. */
 export async function acceptInvitation(context: AppContext, token: string, name: string, password: string): Promise<IssuedSession & { user: UserRecord }> {
   const invitation = await findInvitationByHash(context, hashToken(token));
-  if (!invitation) throw new NotFoundError('The invitation');
   const iso = now(context).toISOString();
-  if (invitation.acceptedAt) throw new ConflictError('This invitation has been used already; sign in instead.');
-  if (invitation.expiresAt <= iso) throw new ConflictError('This invitation has expired; ask an admin for a new one.');
+  const state = stateOf(invitation, iso);
+  if (!invitation || state === 'unknown') throw new NotFoundError('The invitation');
+  if (state === 'used') throw new ConflictError('This invitation has been used already; sign in instead.');
+  if (state === 'expired') throw new ConflictError('This invitation has expired; ask an admin for a new one.');
   const user = await findUserById(context, invitation.userId);
   if (!user || user.status !== 'invited') throw new ConflictError('This account is no longer waiting for its invitation.');
   const passwordHash = await hashPassword(password);

@@ -82,6 +82,22 @@ describe('bindLoop', () => {
     expect(details).toEqual([{ gain: 6, loop: 'events' }]);
   });
 
+  it('gives the host element a setGain method that puts the gain back even when the gain property already holds it', () => {
+    const fixture = probe({ model: '1/(s+1)', loop: 'reset', gain: 2 });
+    const details: unknown[] = [];
+    fixture.nativeElement.addEventListener('pw-gain-change', (e: Event) => details.push((e as CustomEvent).detail));
+    fixture.componentInstance.binding.setGainByUser(7);
+    fixture.componentRef.setInput('gain', 2); // the same value again: ignored, as for any input
+    fixture.detectChanges();
+    expect(fixture.componentInstance.binding.state().gain()).toBe(7);
+    const host = fixture.nativeElement as HTMLElement & { setGain(k: number): boolean };
+    expect(host.setGain(2)).toBe(true);
+    expect(host.setGain(Number.NaN)).toBe(false);
+    fixture.detectChanges();
+    expect(fixture.nativeElement.textContent).toBe('ready|2|');
+    expect(details).toEqual([{ gain: 7, loop: 'reset' }]);
+  });
+
   it('asks for the token when model-id comes without one', () => {
     const fixture = probe({ modelId: 'abc' });
     expect(fixture.nativeElement.textContent).toMatch(/^error\|1\|model-id abc is set but token is missing/);

@@ -106,6 +106,11 @@ export function bindLoop(inputs: LoopInputs): LoopBinding {
     untracked(() => s.setTargets(read.targets));
   });
 
+  // Host pages get a method as well as the `gain` property: a property set to the value it already holds is
+  // ignored (input semantics), so a dashboard putting the gain back after the user moved it calls setGain(k).
+  // Like a property change it sends no pw-gain-change (that event is for the user's moves).
+  Object.assign(host, { setGain: (gain: number): boolean => state().setGain(gain, null) });
+
   return {
     state,
     loopKey,
