@@ -7,7 +7,7 @@ const FIELD_OF_POINTER = { '/name': 'name', '/password': 'password' };
 
 /** What the page says about a link that cannot be used any more (the server puts the state in data-invitation). */
 const CLOSED = {
-  used: ['This invitation has been used already.', 'The account is set up: sign in with its e-mail and the password chosen then.'],
+  used: ['This invitation has been used already.', 'The account is set up: sign in with its e-mail and the password chosen then (POST /api/v1/sessions).'],
   expired: ['This invitation has expired.', 'Ask an admin of your Polewright server for a new invitation.'],
   unknown: ['This invitation link is not known.', 'Check that the whole link was copied from the e-mail, or ask an admin for a new invitation.'],
 };
@@ -48,6 +48,7 @@ function focusFirstInvalid() {
 /** A link that cannot be used: say why and take the form away. */
 function closeForm(title, detail) {
   form.hidden = true;
+  document.getElementById('lead').hidden = true;
   showNotice(title, detail);
   notice.focus();
 }
@@ -62,7 +63,9 @@ function localProblems(values) {
 
 function sentence(text) {
   const trimmed = String(text ?? '').trim();
-  return trimmed ? trimmed[0].toUpperCase() + trimmed.slice(1) : trimmed;
+  // the validator writes "must NOT have fewer than 10 characters"
+  const plain = trimmed.replace(/\bNOT\b/g, 'not');
+  return plain ? `${plain[0].toUpperCase()}${plain.slice(1)}${/[.!?]$/.test(plain) ? '' : '.'}` : plain;
 }
 
 /** Puts a problem+json answer on the page: field errors at their fields, the rest at the top. */
@@ -87,7 +90,7 @@ function showReady(user) {
   document.getElementById('lead').hidden = true;
   document.getElementById('ready-email').textContent = user.email;
   document.getElementById('ready-request').textContent =
-    `POST /api/v1/sessions\nContent-Type: application/json\n\n${JSON.stringify({ email: user.email, password: '…' })}`;
+    `POST /api/v1/sessions\nContent-Type: application/json\n\n${JSON.stringify({ email: user.email, password: '…' }, null, 2)}`;
   const ready = document.getElementById('ready');
   ready.hidden = false;
   ready.focus();

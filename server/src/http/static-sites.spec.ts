@@ -38,6 +38,12 @@ describe('static front ends', () => {
     expect((await request(app).get('/models/abc')).text).toContain('console');
   });
 
+  it("leaves /invitations/… to the invitation page instead of the console's fallback", async () => {
+    const res = await request(app).get('/invitations/pwi_x');
+    expect(res.status).toBe(404);
+    expect(res.text).not.toContain('console');
+  });
+
   it('skips a missing folder with a log line', () => {
     expect(logs).toEqual(['static: demo/embed not built, /embed-demo not served']);
   });
