@@ -4,6 +4,7 @@ import * as OpenApiValidator from 'express-openapi-validator';
 import { apiKeysRouter } from './api-keys/api-keys.routes.js';
 import { auditRouter } from './audit/audit.routes.js';
 import { authenticate } from './auth/authenticate.js';
+import { authorizeOperation, requireAuthorizedOperation } from './auth/authorize-operation.js';
 import { type AppContext, logLine } from './context.js';
 import { embedTokensRouter } from './embed-tokens/embed-tokens.routes.js';
 import { healthRouter } from './health/health.routes.js';
@@ -14,12 +15,13 @@ import { rateLimits } from './http/rate-limit.js';
 import { requestId } from './http/request-id.js';
 import { mountStaticSites } from './http/static-sites.js';
 import { mailboxRouter } from './mail/mailbox.routes.js';
+import { loadApiDocument } from './openapi/api-document.js';
 import { sessionsRouter } from './sessions/sessions.routes.js';
 import { usersRouter } from './users/users.routes.js';
 import { computeRouter } from './compute/compute.routes.js';
 import { modelsRouter } from './models/models.routes.js';
 
-/** The feature routers mounted under `/api/v1` (each checks its own permissions with `authorize`). */
+/** The feature routers mounted under `/api/v1` (authorised before validation by `authorizeOperation`). */
 function apiV1(context: AppContext): Router {
   const router = Router();
   router.use(sessionsRouter(context));
@@ -34,9 +36,9 @@ function apiV1(context: AppContext): Router {
 }
 
 /**
- * Builds the Express app (never listens): helmet, request ids, rate limits, JSON bodies, the bearer
- * strategy, OpenAPI validation of every `/api` request, the routers, the static front ends and the one
- * problem+json error handler.
+ * Builds the Express app (never listens): helmet, request ids, rate limits, the bearer strategy,
+ * authorisation by each operation's `x-polewright-permission`, JSON bodies, OpenAPI validation of every
+ * `/api` request, the routers, the static front ends and the one problem+json error handler.
  */
 export function createApp(context: AppContext): Express {
   const app = express();
@@ -48,8 +50,10 @@ export function createApp(context: AppContext): Express {
   app.use(helmet({ contentSecurityPolicy: { directives: { upgradeInsecureRequests: null } }, crossOriginResourcePolicy: { policy: 'cross-origin' } }));
   app.use('/api', embedPreflight(), embedRefusalCors());
   for (const limiter of rateLimits(context.config.rateLimitPerMinute)) app.use('/api', limiter);
-  app.use('/api', express.json({ limit: context.config.jsonBodyLimit, type: ['application/json', 'application/*+json'] }));
   app.use('/api', authenticate(context), embedCorsHeaders());
+  // who may call an operation is decided before its body is read or validated: 401/403, never a 400 first
+  app.use('/api', authorizeOperation(loadApiDocument(context.config.openapiPath)));
+  app.use('/api', express.json({ limit: context.config.jsonBodyLimit, type: ['application/json', 'application/*+json'] }));
   app.use(
     OpenApiValidator.middleware({
       apiSpec: context.config.openapiPath,
@@ -64,7 +68,7 @@ export function createApp(context: AppContext): Express {
     }),
   );
   app.use('/api', healthRouter(context));
-  app.use('/api/v1', apiV1(context));
+  app.use('/api/v1', requireAuthorizedOperation(), apiV1(context));
   app.use('/api', (req, _res, next) => next(new RouteNotFoundError(req.method, req.originalUrl.split('?')[0] ?? '/')));
   // the link of invitation e-mails, until the console takes the route over (http/invitation-page.ts)
   app.use(invitationPageRouter(context));

@@ -1,5 +1,4 @@
 import { Router } from 'express';
-import { authorize } from '../auth/authorize.js';
 import type { Permission } from '../auth/permissions.js';
 import type { AppContext } from '../context.js';
 import type { components } from '../openapi/api-types.js';
@@ -11,16 +10,16 @@ type S = components['schemas'];
 /** Admin API keys: issue (secret shown once), list (never secrets), revoke. */
 export function apiKeysRouter(context: AppContext): Router {
   const router = Router();
-  router.get('/api-keys', authorize('admin'), async (_req, res) => {
+  router.get('/api-keys', async (_req, res) => {
     res.json({ items: (await listApiKeys(context)).map(apiKeyView) });
   });
-  router.post('/api-keys', authorize('admin'), async (req, res) => {
+  router.post('/api-keys', async (req, res) => {
     const input = req.body as S['ApiKeyCreate'];
     const { key, secret } = await issueApiKey(context, req.principal!, { name: input.name, scopes: input.scopes as Permission[], expiresAt: input.expiresAt });
     const body: S['ApiKeyCreated'] = { ...apiKeyView(key), secret };
     res.status(201).json(body);
   });
-  router.delete('/api-keys/:id', authorize('admin'), async (req, res) => {
+  router.delete('/api-keys/:id', async (req, res) => {
     await revokeApiKey(context, req.principal!, req.params['id'] as string);
     res.status(204).end();
   });

@@ -9,8 +9,8 @@ import { resolveToken } from './resolve-token.js';
 /**
  * The one bearer strategy (passport-http-bearer) for sessions, API keys and embed tokens. The middleware
  * sets `req.principal` when a token is present and valid, fails with 401/403 when a token is present but
- * not acceptable, and lets requests without any token through: each operation's `security` in the OpenAPI
- * document (checked by the validator) and `authorize()` in the routers decide what needs a token.
+ * not acceptable, and lets requests without any token through: each operation's `x-polewright-permission`
+ * in the OpenAPI document (applied by `authorizeOperation`, next) decides what needs a token.
  */
 export function authenticate(context: AppContext): RequestHandler {
   const authenticator = new passport.Passport();

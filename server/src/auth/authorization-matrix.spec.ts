@@ -61,6 +61,25 @@ const ROWS: Row[] = [
 
 const METHODS = ['get', 'put', 'post', 'delete', 'patch', 'head', 'options', 'trace'] as const;
 
+/** Requests the validator would refuse (400 with `pointer`): authorisation must answer first. */
+interface InvalidRow {
+  operationId: string;
+  need: Permission;
+  pointer: string;
+  send: (api: request.Agent, ids: { a: string; b: string; revision: number; user: string; key: string }) => request.Test;
+}
+
+const INVALID: InvalidRow[] = [
+  { operationId: 'updateModel', need: 'models:write', pointer: '/name', send: (api, ids) => api.put(`/api/v1/models/${ids.b}`).set('If-Match', `"${ids.b}-r${ids.revision}"`).send({}) },
+  { operationId: 'createModel', need: 'models:write', pointer: '/name', send: (api) => api.post('/api/v1/models').send({ name: 7, plant: PLANT }) },
+  { operationId: 'computeLocus', need: 'compute', pointer: '/plant', send: (api) => api.post('/api/v1/locus').send({}) },
+  { operationId: 'listUsers', need: 'admin', pointer: '/query/page', send: (api) => api.get('/api/v1/users?page=0') },
+  { operationId: 'inviteUser', need: 'admin', pointer: '/role', send: (api) => api.post('/api/v1/users').send({ email: 'matrix.invalid@quillfield.example' }) },
+  { operationId: 'updateUser', need: 'admin', pointer: '/role', send: (api, ids) => api.patch(`/api/v1/users/${ids.user}`).send({ role: 'overseer' }) },
+  { operationId: 'createApiKey', need: 'admin', pointer: '/scopes', send: (api) => api.post('/api/v1/api-keys').send({ name: 'matrix' }) },
+  { operationId: 'createEmbedToken', need: 'models:read', pointer: '/ttlSeconds', send: (api, ids) => api.post('/api/v1/embed-tokens').send({ modelIds: [ids.b], origins: [PAGE] }) },
+];
+
 describe('authorization matrix', () => {
   let server: TestServer;
   let ids: { a: string; b: string; revision: number; user: string; key: string };
@@ -177,6 +196,84 @@ describe('authorization matrix', () => {
       }
     });
   }
+
+  it('the document declares the permission each row expects', async () => {
+    const doc = await loadApiDocument(server.config.openapiPath);
+    const declared: Record<string, unknown> = {};
+    for (const item of Object.values(doc.paths ?? {})) {
+      for (const method of METHODS) {
+        const op = (item as Record<string, Record<string, unknown> | undefined>)[method];
+        if (op) declared[String(op['operationId'])] = op['x-polewright-permission'];
+      }
+    }
+    for (const row of [...ROWS, ...INVALID]) expect(declared[row.operationId], row.operationId).toBe(row.need);
+  });
+
+  describe('invalid requests are authorised before they are validated', () => {
+    const send = async (row: InvalidRow, token: string | undefined, origin?: string) => {
+      let test = row.send(request.agent(server.baseUrl), ids);
+      if (token) test = test.set('Authorization', `Bearer ${token}`);
+      if (origin) test = test.set('Origin', origin);
+      return test;
+    };
+    for (const row of INVALID) {
+      it(`${row.operationId}: no token → 401, not 400; nothing changed`, async () => {
+        const before = await fingerprint();
+        const res = await send(row, undefined);
+        expect(res.status, res.text).toBe(401);
+        expect(res.body.errors).toBeUndefined();
+        expect(await fingerprint()).toBe(before);
+      });
+      const refused = ROLES.filter((role) => !ROLE_PERMISSIONS[role].includes(row.need));
+      for (const role of refused) {
+        it(`${row.operationId}: the ${role} role → 403, not 400; nothing changed`, async () => {
+          const before = await fingerprint();
+          const res = await send(row, server.tokens[role]);
+          expect(res.status, res.text).toBe(403);
+          expect(res.headers['content-type']).toMatch(/^application\/problem\+json/);
+          expect(res.body.errors).toBeUndefined();
+          expect(await fingerprint()).toBe(before);
+        });
+      }
+      it(`${row.operationId}: a key without ${row.need} → 403, not 400; nothing changed`, async () => {
+        const key = await issueKey(API_KEY_SCOPES.filter((s) => s !== row.need));
+        const before = await fingerprint();
+        const res = await send(row, key.secret);
+        expect(res.status, res.text).toBe(403);
+        expect(res.body.errors).toBeUndefined();
+        expect(await fingerprint()).toBe(before);
+      });
+      it(`${row.operationId}: the embed token from its own origin → 403, not 400; nothing changed`, async () => {
+        const before = await fingerprint();
+        const res = await send(row, tokens['embed'], PAGE);
+        expect(res.status, res.text).toBe(403);
+        expect(res.body.errors).toBeUndefined();
+        expect(await fingerprint()).toBe(before);
+      });
+      const allowed = ROLES.find((role) => ROLE_PERMISSIONS[role].includes(row.need)) as (typeof ROLES)[number];
+      it(`${row.operationId}: the ${allowed} role → 400 with the pointer ${row.pointer}; nothing changed`, async () => {
+        const before = await fingerprint();
+        const res = await send(row, server.tokens[allowed]);
+        expect(res.status, res.text).toBe(400);
+        expect(res.headers['content-type']).toMatch(/^application\/problem\+json/);
+        expect((res.body.errors as { pointer: string }[]).map((e) => e.pointer)).toContain(row.pointer);
+        expect(await fingerprint()).toBe(before);
+      });
+    }
+
+    it('a body that is not JSON at all: the viewer gets 403 (never read), the engineer 400 at the body', async () => {
+      const id = ids.b;
+      const put = (token: string) =>
+        request(server.baseUrl).put(`/api/v1/models/${id}`).set('If-Match', `"${id}-r${ids.revision}"`).set('Content-Type', 'application/json').auth(token, { type: 'bearer' }).send('{"name": ');
+      const before = await fingerprint();
+      const viewer = await put(server.tokens.viewer);
+      expect(viewer.status, viewer.text).toBe(403);
+      const engineer = await put(server.tokens.engineer);
+      expect(engineer.status, engineer.text).toBe(400);
+      expect(engineer.body.errors).toEqual([{ pointer: '', detail: 'not valid JSON' }]);
+      expect(await fingerprint()).toBe(before);
+    });
+  });
 
   it('the embed token does read its own model from its own origin (the matrix is not refusing everything)', async () => {
     const res = await request(server.baseUrl).get(`/api/v1/models/${ids.a}`).set('Origin', PAGE).auth(tokens['embed'] as string, { type: 'bearer' });

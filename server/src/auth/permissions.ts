@@ -1,6 +1,21 @@
 /** What a token may do. Scopes of API keys are a subset of the first three. */
 export type Permission = 'models:read' | 'models:write' | 'compute' | 'admin';
 
+/**
+ * What an operation of the OpenAPI document requires (its `x-polewright-permission`): a permission, any
+ * signed-in session (`session`: sign out, `/me`), or nothing at all (`public`: sign-in, health, docs,
+ * invitation accept).
+ */
+export type Requirement = Permission | 'session' | 'public';
+
+/** Every value `x-polewright-permission` may take. */
+export const REQUIREMENTS: readonly Requirement[] = ['models:read', 'models:write', 'compute', 'admin', 'session', 'public'];
+
+/** Whether a value names a requirement. */
+export function isRequirement(value: unknown): value is Requirement {
+  return typeof value === 'string' && (REQUIREMENTS as readonly string[]).includes(value);
+}
+
 /** The three roles of people. */
 export type Role = 'admin' | 'engineer' | 'viewer';
 

@@ -1,5 +1,4 @@
 import { Router, type RequestHandler } from 'express';
-import { authorize } from '../auth/authorize.js';
 import type { AppContext } from '../context.js';
 import { checkComputeSize, compute } from './compute.service.js';
 
@@ -16,13 +15,13 @@ const sizeGuard: RequestHandler = (req, _res, next) => {
  */
 export function computeRouter(context: AppContext): Router {
   const router = Router();
-  router.post('/locus', authorize('compute'), sizeGuard, async (req, res) => {
+  router.post('/locus', sizeGuard, async (req, res) => {
     res.type('application/json').send(await compute(context, 'locus', req.body));
   });
-  router.post('/closed-loop', authorize('compute'), sizeGuard, async (req, res) => {
+  router.post('/closed-loop', sizeGuard, async (req, res) => {
     res.type('application/json').send(await compute(context, 'closed-loop', req.body));
   });
-  router.post('/design', authorize('compute'), sizeGuard, async (req, res) => {
+  router.post('/design', sizeGuard, async (req, res) => {
     res.type('application/json').send(await compute(context, 'design', req.body));
   });
   return router;

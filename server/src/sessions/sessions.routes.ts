@@ -1,9 +1,9 @@
 import { Router } from 'express';
 import type { AppContext } from '../context.js';
-import { ForbiddenError, NotFoundError, UnauthorizedError } from '../http/problem.js';
+import { NotFoundError } from '../http/problem.js';
 import type { components } from '../openapi/api-types.js';
 import { ROLE_PERMISSIONS } from '../auth/permissions.js';
-import type { Principal } from '../auth/principal.js';
+import { requireSession } from '../auth/authorize.js';
 import { userView } from '../users/user-view.js';
 import { findUserById } from '../users/users.repository.js';
 import { findSessionById } from './sessions.repository.js';
@@ -12,12 +12,6 @@ import { signIn, signOut } from './sessions.service.js';
 type SignIn = components['schemas']['SignIn'];
 type SessionCreated = components['schemas']['SessionCreated'];
 type Me = components['schemas']['Me'];
-
-function sessionOf(principal: Principal | undefined): Principal {
-  if (!principal) throw new UnauthorizedError();
-  if (principal.kind !== 'session') throw new ForbiddenError('Only a signed-in session can do this (not an API key or embed token).');
-  return principal;
-}
 
 /** `POST /sessions` (sign in), `DELETE /sessions/current` (sign out), `GET /me`. */
 export function sessionsRouter(context: AppContext): Router {
@@ -29,12 +23,12 @@ export function sessionsRouter(context: AppContext): Router {
     res.status(201).json(created);
   });
   router.delete('/sessions/current', async (req, res) => {
-    const principal = sessionOf(req.principal);
+    const principal = requireSession(req.principal);
     await signOut(context, principal.tokenId, principal.userId);
     res.status(204).end();
   });
   router.get('/me', async (req, res) => {
-    const principal = sessionOf(req.principal);
+    const principal = requireSession(req.principal);
     const [user, session] = await Promise.all([findUserById(context, principal.userId ?? ''), findSessionById(context, principal.tokenId)]);
     if (!user || !session) throw new NotFoundError('The session');
     const me: Me = { user: userView(user), permissions: [...ROLE_PERMISSIONS[user.role]], session: { id: session.id, expiresAt: session.expiresAt } };
