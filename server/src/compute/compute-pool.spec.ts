@@ -1,6 +1,7 @@
 import { closedLoop, locus, ValidationError } from '@polewright/locus-core';
 import { build } from 'esbuild';
-import { mkdirSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { afterAll, describe, expect, it } from 'vitest';
@@ -56,6 +57,31 @@ describe('compute pool', () => {
     const pool = createComputePool(1, entry);
     cleanup.push(() => pool.close());
     await exercise(pool);
+  });
+
+  it('hands each worker a running and a waiting task, matches every answer to its task, and a dying worker rejects only the task it was running', async () => {
+    // a stand-in worker speaking the pool's protocol: echoes the payload as JSON bytes, exits on "exit"
+    const folder = mkdtempSync(join(tmpdir(), 'polewright-pool-spec-'));
+    cleanup.push(() => rmSync(folder, { recursive: true, force: true }));
+    const echo = join(folder, 'echo-worker.mjs');
+    writeFileSync(echo, [
+      "import { parentPort } from 'node:worker_threads';",
+      "parentPort.on('message', ({ id, payload }) => {",
+      "  if (payload === 'exit') process.exit(3);",
+      '  const bytes = new TextEncoder().encode(JSON.stringify(payload));',
+      '  parentPort.postMessage({ id, ok: true, bytes }, [bytes.buffer]);',
+      '});',
+    ].join('\n'));
+    const pool = createComputePool(1, pathToFileURL(echo));
+    cleanup.push(() => pool.close());
+    const many = await Promise.all([1, 2, 3, 4, 5, 6].map((n) => pool.run('locus', { n })));
+    expect(many.map((bytes) => JSON.parse(bytes.toString()))).toEqual([1, 2, 3, 4, 5, 6].map((n) => ({ n })));
+    // "a" runs, "exit" waits in the same worker, "b" waits in the pool's queue and then behind "exit":
+    // the worker's death rejects "exit" alone, "b" runs on the replacement
+    const [a, dead, b] = await Promise.allSettled([pool.run('locus', 'a'), pool.run('locus', 'exit'), pool.run('locus', 'b')]);
+    expect(a).toEqual({ status: 'fulfilled', value: Buffer.from('"a"') });
+    expect(dead.status === 'rejected' && String(dead.reason)).toMatch(/stopped \(exit code 3\)/);
+    expect(b).toEqual({ status: 'fulfilled', value: Buffer.from('"b"') });
   });
 
   it('rejects work after close and leaves no worker running', async () => {

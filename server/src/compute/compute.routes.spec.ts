@@ -24,6 +24,9 @@ describe('compute routes', () => {
     expect(res.body).toEqual(JSON.parse(JSON.stringify(locus(body))));
     expect(res.body.caution).toBe(CAUTION);
     expect(res.body.branches).toHaveLength(8);
+    // the worker's bytes go out as they are: exact length, no ETag hashed over a POST answer
+    expect(Number(res.headers['content-length'])).toBe(Buffer.byteLength(res.text));
+    expect(res.headers['etag']).toBeUndefined();
   });
 
   it('POST /closed-loop answers what the core computes, step response included', async () => {
