@@ -7,15 +7,22 @@ import type { Complex } from './complex';
  * `tolerance` is relative to the larger modulus of the pair (plus an absolute floor of the same size).
  */
 export function hasCompleteConjugatePairs(values: readonly Complex[], tolerance = 1e-9): boolean {
+  return firstUnpaired(values, tolerance) < 0;
+}
+
+/**
+ * Index of the first non-real value whose conjugate is missing from the list (each value pairs once), or −1;
+ * same tolerance as `hasCompleteConjugatePairs`.
+ * Example: firstUnpaired([{ re: -1, im: 1 }, { re: -1, im: -1 }, { re: 0, im: 2 }]) = 2.
+ */
+export function firstUnpaired(values: readonly Complex[], tolerance = 1e-9): number {
   const used = new Array<boolean>(values.length).fill(false);
   for (let i = 0; i < values.length; i++) {
     if (used[i]) continue;
     const v = values[i];
     const scale = Math.max(1, Math.hypot(v.re, v.im));
-    if (Math.abs(v.im) <= tolerance * scale) {
-      used[i] = true;
-      continue;
-    }
+    used[i] = true;
+    if (Math.abs(v.im) <= tolerance * scale) continue;
     let match = -1;
     for (let j = i + 1; j < values.length; j++) {
       if (used[j]) continue;
@@ -25,11 +32,10 @@ export function hasCompleteConjugatePairs(values: readonly Complex[], tolerance 
         break;
       }
     }
-    if (match < 0) return false;
-    used[i] = true;
+    if (match < 0) return i;
     used[match] = true;
   }
-  return true;
+  return -1;
 }
 
 /**

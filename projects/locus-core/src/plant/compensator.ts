@@ -1,4 +1,5 @@
 import type { Complex } from '../complex/complex';
+import { firstUnpaired } from '../complex/conjugate-pairs';
 import { ValidationError, type FieldIssue } from '../errors';
 import { fromRoots } from '../polynomial/from-roots';
 import { multiply } from '../polynomial/polynomial';
@@ -101,20 +102,4 @@ function readRoots(value: unknown, pointer: string, issues: FieldIssue[]): Compl
   const unpaired = firstUnpaired(out);
   if (unpaired >= 0) issues.push({ pointer: `${pointer}/${unpaired}`, detail: 'is complex without its conjugate; complex values of a real compensator come in pairs a ± bj' });
   return out;
-}
-
-// index of the first non-real value whose conjugate is missing (relative tolerance 1e-9), or −1
-function firstUnpaired(values: readonly Complex[]): number {
-  const used = new Array<boolean>(values.length).fill(false);
-  for (let i = 0; i < values.length; i++) {
-    if (used[i]) continue;
-    const v = values[i];
-    const tolerance = 1e-9 * Math.max(1, Math.hypot(v.re, v.im));
-    used[i] = true;
-    if (Math.abs(v.im) <= tolerance) continue;
-    const j = values.findIndex((w, k) => !used[k] && Math.abs(w.re - v.re) <= tolerance && Math.abs(w.im + v.im) <= tolerance);
-    if (j < 0) return i;
-    used[j] = true;
-  }
-  return -1;
 }
