@@ -6,6 +6,7 @@
 import type { ErrorRequestHandler, Request, Response } from 'express';
 import {
   ConflictError,
+  describeIssues,
   ForbiddenError,
   InputError,
   type InputIssue,
@@ -55,6 +56,9 @@ const KINDS = {
   internal: { status: 500, slug: 'internal', title: 'Internal server error' },
 } satisfies Record<string, Kind>;
 
+// the only detail a 500 ever sends: the cause stays in the log
+const INTERNAL_DETAIL = 'Something went wrong on the server.';
+
 // the validator's 404 means no operation of the document matches the path
 const BY_STATUS = new Map<number, Kind>(Object.values(KINDS).filter((k) => k !== KINDS.notFound).map((k) => [k.status, k]));
 
@@ -92,12 +96,12 @@ function classify(error: unknown): Classified {
   if (error instanceof TooManyRequestsError) {
     return { kind: KINDS.tooManyRequests, detail: error.message, headers: { 'Retry-After': String(error.retryAfterSeconds) } };
   }
-  if (typeof error !== 'object' || error === null) return { kind: KINDS.internal, detail: 'Something went wrong on the server.' };
+  if (typeof error !== 'object' || error === null) return { kind: KINDS.internal, detail: INTERNAL_DETAIL };
   const e = error as { name?: unknown; issues?: unknown; type?: unknown; status?: unknown; code?: unknown; errors?: unknown; message?: unknown; headers?: unknown };
   // the core's ValidationError: issues are JSON Pointers into the request body already
   if (e.name === 'ValidationError' && Array.isArray(e.issues)) {
     const issues = (e.issues as InputIssue[]).map((i) => ({ pointer: String(i.pointer), detail: String(i.detail) }));
-    return { kind: KINDS.badRequest, detail: issues.map((i) => `${i.pointer || '/'}: ${i.detail}`).join('; '), errors: issues };
+    return { kind: KINDS.badRequest, detail: describeIssues(issues), errors: issues };
   }
   // body-parser (express.json)
   if (e.type === 'entity.too.large') return { kind: KINDS.tooLarge, detail: 'The JSON body is larger than allowed.' };
@@ -117,10 +121,10 @@ function classify(error: unknown): Classified {
     const allow = (e.headers as { Allow?: string } | undefined)?.Allow;
     if (allow) headers['Allow'] = allow;
     if (kind.status === 401) headers['WWW-Authenticate'] = 'Bearer';
-    const detail = kind.status === 500 ? 'Something went wrong on the server.' : errors ? errors.map((i) => `${i.pointer || '/'}: ${i.detail}`).join('; ') : String(e.message ?? kind.title);
+    const detail = kind.status === 500 ? INTERNAL_DETAIL : errors ? describeIssues(errors) : String(e.message ?? kind.title);
     return { kind, detail, errors, headers };
   }
-  return { kind: KINDS.internal, detail: 'Something went wrong on the server.' };
+  return { kind: KINDS.internal, detail: INTERNAL_DETAIL };
 }
 
 /** Writes a problem+json response. */

@@ -23,7 +23,7 @@ export function readModelInput(body: unknown): ModelInput {
   const comment = readText(record['comment'] ?? '', '/comment', 0, MODEL_LIMITS.comment, issues, false);
   const tags = readTags(record['tags'] ?? [], issues);
   const plant = readPlant(record['plant'], issues);
-  const compensator = readCompensatorInto(record['compensator'], issues);
+  const compensator: Compensator | null = collect(issues, () => readCompensator(record['compensator'], '/compensator'));
   const design = readDesign(record['design'], issues);
   if (plant !== null && !issues.some((i) => i.pointer.startsWith('/compensator'))) checkLoop(plant, compensator, design, issues);
   if (issues.length > 0 || plant === null) throw new InputError(issues);
@@ -66,13 +66,7 @@ function readPlant(value: unknown, issues: Issue[]): Plant | null {
     issues.push({ pointer: '/plant', detail: 'is required' });
     return null;
   }
-  try {
-    normalizePlant(value, '/plant');
-  } catch (error) {
-    if (!(error instanceof ValidationError)) throw error;
-    issues.push(...error.issues);
-    return null;
-  }
+  if (collect(issues, () => normalizePlant(value, '/plant')) === null) return null;
   // keep only the fields the core reads, so that stored plants are exactly the core's plant form
   const source = value as Record<string, unknown>;
   const plant: Record<string, unknown> = {};
@@ -109,10 +103,10 @@ function checkLoop(plant: Plant, compensator: ModelInput['compensator'], design:
   }
 }
 
-/** The core's compensator check, its field issues collected with the others instead of thrown. */
-function readCompensatorInto(value: unknown, issues: Issue[]): Compensator | null {
+/** Runs one of the core's checks, its field issues collected with the others instead of thrown (null then). */
+function collect<T>(issues: Issue[], check: () => T): T | null {
   try {
-    return readCompensator(value, '/compensator');
+    return check();
   } catch (error) {
     if (!(error instanceof ValidationError)) throw error;
     issues.push(...error.issues);
