@@ -36,7 +36,10 @@ export class GainControl extends LoopElement {
     return state.error() ?? (state.status() === 'idle' ? 'No model yet.' : null);
   });
 
-  private readonly span = computed(() => gainSpanOf(this.locus(), this.currentGainAtSpanChange(), this.min(), this.max()));
+  // equal spans keep the same value, so a drag inside the span does not rebuild the scale, segments and ticks
+  private readonly span = computed(() => gainSpanOf(this.locus(), this.currentGainAtSpanChange(), this.min(), this.max()), {
+    equal: (a, b) => a.lo === b.lo && a.hi === b.hi,
+  });
   private readonly scale = computed(() => trackScale(this.span().lo, this.span().hi));
   protected readonly position = computed(() => Math.round(this.scale()(this.currentGain())));
   protected readonly segments = computed(() => trackSegments(this.locus()?.stableGainRanges ?? [], this.span().lo, this.span().hi));

@@ -54,11 +54,23 @@ export function formatRange(range: GainRange): string {
   return `${formatGain(range.from)} < K < ${formatGain(range.to)}`;
 }
 
+/**
+ * The smallest positive gain traced on any branch, or null when none is (points run in ascending gain, so
+ * each branch's first positive point is its smallest; a loop, not a spread, so long traces cannot overflow).
+ */
+export function smallestTracedGain(result: LocusResult): number | null {
+  let floor = Infinity;
+  for (const branch of result.branches) {
+    const first = branch.points.find((p) => p.gain > 0);
+    if (first && first.gain < floor) floor = first.gain;
+  }
+  return Number.isFinite(floor) ? floor : null;
+}
+
 /** The gains sampled for the table (see `locusTable`), rounded to two significant digits. */
 export function sampleGains(result: LocusResult): number[] {
-  const traced = result.branches.flatMap((b) => b.points.map((p) => p.gain)).filter((g) => g > 0);
-  if (traced.length === 0) return [0];
-  const floor = Math.min(...traced);
+  const floor = smallestTracedGain(result);
+  if (floor === null) return [0];
   const featureGains = [...result.breakPoints, ...result.crossings].map((f) => f.gain).filter((g) => g > 0);
   const top = Math.min(result.gainSpan.max, 10 * Math.max(floor * 100, ...featureGains));
   const out = [0];

@@ -23,7 +23,7 @@ import { LoopElement } from '../loop/loop-element';
 import { PlotAxis } from './axis';
 import { asymptoteRays, featurePoints, formatGain } from './features';
 import { planePath, branchPaths } from './branch';
-import { locusTable } from './data-table';
+import { locusTable, smallestTracedGain } from './data-table';
 import { sPlaneGuides, zPlaneGuides } from './guides';
 import { compensatorPoleMarkPath, gainMarkers, groupCoincident, poleMarkPath } from './markers';
 import { CompensatorEditor } from './compensator-editor';
@@ -164,8 +164,7 @@ export class LocusPlot extends LoopElement {
   });
   protected readonly gainSpan = computed(() => {
     const result = this.result();
-    const gains = result?.branches.flatMap((b) => b.points.map((p) => p.gain)).filter((g) => g > 0) ?? [];
-    return { floor: gains.length ? Math.min(...gains) : 1, max: result?.gainSpan.max ?? 1 };
+    return { floor: (result && smallestTracedGain(result)) ?? 1, max: result?.gainSpan.max ?? 1 };
   });
   protected readonly gainText = computed(() => `K ${formatGain(this.currentGain())}`);
   protected readonly poleMark = poleMarkPath();

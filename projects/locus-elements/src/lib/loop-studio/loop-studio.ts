@@ -1,8 +1,7 @@
-import { booleanAttribute, ChangeDetectionStrategy, Component, computed, input, numberAttribute, ViewEncapsulation } from '@angular/core';
+import { booleanAttribute, ChangeDetectionStrategy, Component, computed, input, ViewEncapsulation } from '@angular/core';
 import { GainControl } from '../gain-control/gain-control';
 import { LocusPlot } from '../locus-plot/locus-plot';
-import { bindLoop } from '../loop/loop-binding';
-import type { ElementTheme } from '../loop/loop-element';
+import { LoopElement } from '../loop/loop-element';
 import { PoleTable } from '../pole-table/pole-table';
 import { StabilitySummary } from '../stability-summary/stability-summary';
 import { StepPlot } from '../step-plot/step-plot';
@@ -21,34 +20,20 @@ let nextStudio = 1;
   styleUrls: ['../theme/theme.css', './loop-studio.css'],
   encapsulation: ViewEncapsulation.ShadowDom,
   changeDetection: ChangeDetectionStrategy.OnPush,
-  host: { '[attr.theme]': 'theme() ?? null' },
 })
-export class LoopStudio {
-  readonly model = input<unknown>();
-  readonly modelId = input<string>();
-  readonly apiBase = input<string>();
-  readonly token = input<string>();
-  /** Shared loop key; other elements on the page with the same key follow the studio. */
-  readonly loop = input<string>();
-  readonly gain = input(Number.NaN, { transform: numberAttribute });
-  readonly targets = input<unknown>();
-  readonly theme = input<ElementTheme>();
+export class LoopStudio extends LoopElement {
   /** Lets the user add, drag and remove compensator poles and zeros on the plot. */
   readonly editable = input(false, { transform: booleanAttribute });
   /** Heading above the studio (default: the model's name, when it has one). */
   readonly label = input<string>();
 
-  // the children find the studio's loop by key, so a studio without `loop` gets a key of its own
+  // the children find the studio's loop by key, so a studio without `loop` gets a key of its own; other
+  // elements on the page with the same `loop` follow the studio
   private readonly ownKey = `pw-studio-${nextStudio++}`;
-  protected readonly key = computed(() => this.loop()?.trim() || this.ownKey);
-  protected readonly binding = bindLoop({
-    loop: this.key,
-    model: this.model,
-    modelId: this.modelId,
-    apiBase: this.apiBase,
-    token: this.token,
-    gain: this.gain,
-    targets: this.targets,
-  });
-  protected readonly heading = computed(() => this.label() ?? this.binding.state().model()?.name ?? null);
+  protected readonly key = computed(() => this.binding.loopKey() as string);
+  protected readonly heading = computed(() => this.label() ?? this.state().model()?.name ?? null);
+
+  protected override loopKey(): string {
+    return this.loop()?.trim() || this.ownKey;
+  }
 }

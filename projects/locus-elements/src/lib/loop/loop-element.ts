@@ -30,7 +30,8 @@ export abstract class LoopElement {
 
   /** The element's link to its loop. */
   protected readonly binding = bindLoop({
-    loop: this.loop,
+    // read through the method, so a subclass can supply its own key (computed runs after construction)
+    loop: computed(() => this.loopKey()),
     model: this.model,
     modelId: this.modelId,
     apiBase: this.apiBase,
@@ -39,5 +40,10 @@ export abstract class LoopElement {
     targets: this.targets,
   });
   /** The loop this element shows. */
-  protected readonly state = computed(() => this.binding.state());
+  protected readonly state = this.binding.state;
+
+  /** The key of the loop to bind to: the `loop` input (a subclass may give a key of its own). */
+  protected loopKey(): string | null | undefined {
+    return this.loop();
+  }
 }
