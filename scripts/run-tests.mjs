@@ -1,8 +1,8 @@
 // Runs every test suite of the repository and ends with one plain line: "N passed, N failed".
 // Suites: Vitest (projects core, server and browser: core unit specs beside their files, cross-project
 // reference, property, package, contract and real-browser checks under tests/, server specs), then the
-// Angular component specs of projects/locus-elements (Angular's unit-test builder, Vitest + jsdom;
-// npm run test:elements). Exit code 0 only when something ran and nothing failed.
+// Angular component specs of projects/locus-elements and of the console, projects/console (Angular's
+// unit-test builder, Vitest + jsdom; npm run test:elements, npm run test:console). Exit code 0 only when something ran and nothing failed.
 import { spawnSync } from 'node:child_process';
 import { mkdirSync, readFileSync, rmSync } from 'node:fs';
 
@@ -36,6 +36,7 @@ const suites = [
   runSuite('test', 'npx', ['vitest', 'run', '--reporter=default', '--reporter=json', `--outputFile=${vitestReport}`], vitestReport, 30),
   // component specs: their own runner (the Angular compiler builds them); angular.json points its JSON report here
   runSuite('component test', 'npx', ['ng', 'test', 'locus-elements', '--watch=false'], 'test-artifacts/elements-report.json', 15),
+  runSuite('console test', 'npx', ['ng', 'test', 'console', '--watch=false'], 'test-artifacts/console-report.json', 15),
 ];
 const passed = suites.reduce((sum, s) => sum + s.passed, 0);
 const failed = suites.reduce((sum, s) => sum + s.failed, 0);

@@ -1,0 +1,5 @@
+import { ChangeDetectionStrategy, Component } from '@angular/core';
+
+// PLACEHOLDER (skeleton only): replaced by the real screen before anything lands.
+@Component({ selector: 'pwc-placeholder-AuditLog', template: '<p>AuditLog</p>', changeDetection: ChangeDetectionStrategy.OnPush })
+export class AuditLog {}
