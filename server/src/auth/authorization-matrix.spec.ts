@@ -38,6 +38,7 @@ const ROWS: Row[] = [
     send: (api) => api.post('/api/v1/models/import').attach('file', Buffer.from('name,expression\nMatrix import,1/(s+1)\n'), { filename: 'models.csv', contentType: 'text/csv' }),
   },
   { operationId: 'exportModels', need: 'models:read', send: (api) => api.get('/api/v1/models/export') },
+  { operationId: 'listModelTags', need: 'models:read', send: (api) => api.get('/api/v1/models/tags') },
   { operationId: 'getModel', need: 'models:read', send: (api, ids) => api.get(`/api/v1/models/${ids.b}`) },
   { operationId: 'updateModel', need: 'models:write', send: (api, ids) => api.put(`/api/v1/models/${ids.b}`).set('If-Match', `"${ids.b}-r${ids.revision}"`).send({ name: 'Changed by the matrix', plant: PLANT }) },
   { operationId: 'deleteModel', need: 'models:write', send: (api, ids) => api.delete(`/api/v1/models/${ids.b}`) },
@@ -47,6 +48,7 @@ const ROWS: Row[] = [
   { operationId: 'getModelLocus', need: 'models:read', send: (api, ids) => api.get(`/api/v1/models/${ids.b}/locus`) },
   { operationId: 'deleteCurrentSession', need: 'session', send: (api) => api.delete('/api/v1/sessions/current') },
   { operationId: 'getMe', need: 'session', send: (api) => api.get('/api/v1/me') },
+  { operationId: 'updateMe', need: 'session', send: (api) => api.patch('/api/v1/me').send({ name: 'Changed by the matrix' }) },
   { operationId: 'listUsers', need: 'admin', send: (api) => api.get('/api/v1/users') },
   { operationId: 'inviteUser', need: 'admin', send: (api) => api.post('/api/v1/users').send({ email: `matrix.${randomUUID().slice(0, 8)}@quillfield.example`, role: 'viewer' }) },
   { operationId: 'getUser', need: 'admin', send: (api, ids) => api.get(`/api/v1/users/${ids.user}`) },
@@ -61,10 +63,15 @@ const ROWS: Row[] = [
 
 const METHODS = ['get', 'put', 'post', 'delete', 'patch', 'head', 'options', 'trace'] as const;
 
+/** Whether a signed-in person of this role may call an operation that needs `need`. */
+function roleMay(role: (typeof ROLES)[number], need: Need): boolean {
+  return need === 'session' || ROLE_PERMISSIONS[role].includes(need);
+}
+
 /** Requests the validator would refuse (400 with `pointer`): authorisation must answer first. */
 interface InvalidRow {
   operationId: string;
-  need: Permission;
+  need: Need;
   pointer: string;
   send: (api: request.Agent, ids: { a: string; b: string; revision: number; user: string; key: string }) => request.Test;
 }
@@ -74,6 +81,9 @@ const INVALID: InvalidRow[] = [
   { operationId: 'createModel', need: 'models:write', pointer: '/name', send: (api) => api.post('/api/v1/models').send({ name: 7, plant: PLANT }) },
   { operationId: 'computeLocus', need: 'compute', pointer: '/plant', send: (api) => api.post('/api/v1/locus').send({}) },
   { operationId: 'listUsers', need: 'admin', pointer: '/query/page', send: (api) => api.get('/api/v1/users?page=0') },
+  { operationId: 'listUsers', need: 'admin', pointer: '/query/sort', send: (api) => api.get('/api/v1/users?sort=password') },
+  { operationId: 'listModelTags', need: 'models:read', pointer: '/query/tag', send: (api) => api.get('/api/v1/models/tags?tag=web') },
+  { operationId: 'updateMe', need: 'session', pointer: '/newPassword', send: (api) => api.patch('/api/v1/me').send({ currentPassword: 'whatever-it-is', newPassword: 'short' }) },
   { operationId: 'inviteUser', need: 'admin', pointer: '/role', send: (api) => api.post('/api/v1/users').send({ email: 'matrix.invalid@quillfield.example' }) },
   { operationId: 'updateUser', need: 'admin', pointer: '/role', send: (api, ids) => api.patch(`/api/v1/users/${ids.user}`).send({ role: 'overseer' }) },
   { operationId: 'createApiKey', need: 'admin', pointer: '/scopes', send: (api) => api.post('/api/v1/api-keys').send({ name: 'matrix' }) },
@@ -224,7 +234,7 @@ describe('authorization matrix', () => {
         expect(res.body.errors).toBeUndefined();
         expect(await fingerprint()).toBe(before);
       });
-      const refused = ROLES.filter((role) => !ROLE_PERMISSIONS[role].includes(row.need));
+      const refused = ROLES.filter((role) => !roleMay(role, row.need));
       for (const role of refused) {
         it(`${row.operationId}: the ${role} role → 403, not 400; nothing changed`, async () => {
           const before = await fingerprint();
@@ -235,7 +245,7 @@ describe('authorization matrix', () => {
           expect(await fingerprint()).toBe(before);
         });
       }
-      it(`${row.operationId}: a key without ${row.need} → 403, not 400; nothing changed`, async () => {
+      it(`${row.operationId}: a key without ${row.need === 'session' ? 'a session' : row.need} → 403, not 400; nothing changed`, async () => {
         const key = await issueKey(API_KEY_SCOPES.filter((s) => s !== row.need));
         const before = await fingerprint();
         const res = await send(row, key.secret);
@@ -250,7 +260,7 @@ describe('authorization matrix', () => {
         expect(res.body.errors).toBeUndefined();
         expect(await fingerprint()).toBe(before);
       });
-      const allowed = ROLES.find((role) => ROLE_PERMISSIONS[role].includes(row.need)) as (typeof ROLES)[number];
+      const allowed = ROLES.find((role) => roleMay(role, row.need)) as (typeof ROLES)[number];
       it(`${row.operationId}: the ${allowed} role → 400 with the pointer ${row.pointer}; nothing changed`, async () => {
         const before = await fingerprint();
         const res = await send(row, server.tokens[allowed]);

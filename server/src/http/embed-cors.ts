@@ -40,8 +40,8 @@ export function embedCorsHeaders(): RequestHandler {
   };
 }
 
-// Only the two reads the browser element makes: the model and its locus (not the export, a list route).
-const ELEMENT_READ = /^\/api\/v1\/models\/(?!export$|import$)[^/]+(\/locus)?$/;
+// Only the two reads the browser element makes: the model and its locus (not the export or the tag list).
+const ELEMENT_READ = /^\/api\/v1\/models\/(?!export$|import$|tags$)[^/]+(\/locus)?$/;
 const REFUSALS = new Set([401, 403, 404, 429]);
 
 /**

@@ -44,6 +44,16 @@ describe('problem+json mapping', () => {
     expect(statusOf({ type: 'entity.too.large' })).toBe(413);
   });
 
+  it("turns the validator's paths into pointers: body fields into the body, query and path parameters by name", () => {
+    const p = capture({ status: 400, errors: [{ path: '/body/plant/gain', message: 'must be number' }, { path: '/query/page', message: 'must be >= 1' }, { path: '/params/token', message: 'too long' }] });
+    expect(p.status).toBe(400);
+    expect(p.json.errors).toEqual([
+      { pointer: '/plant/gain', detail: 'must be number' },
+      { pointer: '/query/page', detail: 'must be >= 1' },
+      { pointer: '/path/token', detail: 'too long' },
+    ]);
+  });
+
   it('sets Retry-After on 429', () => {
     const p = capture(new TooManyRequestsError(17));
     expect(p.status).toBe(429);

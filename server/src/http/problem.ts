@@ -74,11 +74,15 @@ interface Classified {
   headers?: Record<string, string>;
 }
 
-/** Validator paths look like `/body/plant/gain` or `/query/page`; body fields become pointers into the body. */
+/**
+ * Validator paths look like `/body/plant/gain`, `/query/page` or `/params/token`; body fields become
+ * pointers into the body, path parameters `/path/<name>` as the Problem schema documents them.
+ */
 function pointerOf(path: string): string {
   const slashed = path.startsWith('.') ? path.replace(/\./g, '/') : path;
   if (slashed === '/body') return '';
   if (slashed.startsWith('/body/')) return slashed.slice('/body'.length);
+  if (slashed.startsWith('/params/')) return `/path/${slashed.slice('/params/'.length)}`;
   return slashed;
 }
 

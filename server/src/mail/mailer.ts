@@ -17,6 +17,11 @@ export interface Mailer {
   close(): Promise<void>;
 }
 
+/** The development mailbox's messages, or null when there is none (production, or mail goes to `SMTP_URL`). */
+export function devMailbox(config: ServerConfig, mailer: Mailer): readonly CapturedMail[] | null {
+  return config.isProduction ? null : mailer.captured;
+}
+
 /** A mailer over `SMTP_URL`, or over a local fake SMTP server that captures every message when it is absent. */
 export async function createMailer(config: ServerConfig): Promise<Mailer> {
   const fake = config.smtpUrl ? null : await startFakeSmtp();

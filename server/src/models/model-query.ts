@@ -1,4 +1,5 @@
 import { InputError, type InputIssue } from '../http/errors.js';
+import { querySort, queryText } from '../http/list-query.js';
 import type { ModelQuery, ModelSort } from './model.js';
 
 /** Page size when none is asked for, and the largest allowed (as in openapi.yaml's PageSize). */
@@ -13,15 +14,7 @@ const SORTS: readonly ModelSort[] = ['name', 'updatedAt', 'createdAt'];
  */
 export function readModelQuery(query: Record<string, unknown>): ModelQuery {
   const issues: InputIssue[] = [];
-  const text = (name: string): string | undefined => {
-    const value = query[name];
-    if (value === undefined || value === '') return undefined;
-    if (typeof value !== 'string') {
-      issues.push({ pointer: `/query/${name}`, detail: 'must be given once, as text' });
-      return undefined;
-    }
-    return value.trim() || undefined;
-  };
+  const text = (name: string) => queryText(query, name, issues);
   const whole = (name: string, fallback: number, max: number): number => {
     const value = query[name];
     if (value === undefined || value === '') return fallback;
@@ -32,16 +25,13 @@ export function readModelQuery(query: Record<string, unknown>): ModelQuery {
     }
     return n;
   };
-  const sort = (text('sort') ?? 'updatedAt') as ModelSort;
-  if (!SORTS.includes(sort)) issues.push({ pointer: '/query/sort', detail: `must be one of ${SORTS.join(', ')}` });
-  const order = text('order') ?? (sort === 'name' ? 'asc' : 'desc');
-  if (order !== 'asc' && order !== 'desc') issues.push({ pointer: '/query/order', detail: 'must be asc or desc' });
+  const { sort, order } = querySort(query, SORTS, 'updatedAt', (s) => (s === 'name' ? 'asc' : 'desc'), issues);
   const includeDeleted = readFlag(query['includeDeleted'], '/query/includeDeleted', issues);
   const result: ModelQuery = {
     q: text('q'),
     tag: text('tag')?.toLowerCase(),
     sort,
-    order: order as 'asc' | 'desc',
+    order,
     page: whole('page', 1, 1_000_000),
     pageSize: whole('pageSize', PAGE_SIZE.default, PAGE_SIZE.max),
     includeDeleted,

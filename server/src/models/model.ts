@@ -79,9 +79,12 @@ export interface ModelPage {
   readonly pageSize: number;
 }
 
-/** Strong ETag of a model revision: `"<id>-r<revision>"`. */
-export function etagOf(id: string, revision: number): string {
-  return `"${id}-r${revision}"`;
+/**
+ * Strong ETag of a model revision: `"<id>-r<revision>"`, and `"<id>-r<revision>-deleted"` while the model is
+ * soft-deleted, so that a cached copy is never revalidated (304) across a delete or a restore.
+ */
+export function etagOf(id: string, revision: number, deleted = false): string {
+  return `"${id}-r${revision}${deleted ? '-deleted' : ''}"`;
 }
 
 /** `T` with every `readonly` removed, deeply (the generated OpenAPI types use mutable arrays). */

@@ -77,6 +77,14 @@ export async function allModels(db: Db): Promise<ModelRecord[]> {
   return rows.map(toModel);
 }
 
+/** Every tag on a model that is not deleted, with how many such models carry it, sorted by tag. */
+export async function listTags(db: Db): Promise<{ tag: string; count: number }[]> {
+  const rows = (await db.query(
+    `SELECT t.value AS tag, COUNT(DISTINCT m.id) AS count FROM models m, json_each(m.tags) t WHERE m.deleted_at IS NULL GROUP BY t.value ORDER BY t.value`,
+  )) as { tag: string; count: number }[];
+  return rows.map((r) => ({ tag: String(r.tag), count: Number(r.count) }));
+}
+
 /** Revision, deletion time and content hash of a model's current revision; null when there is no such id. */
 export async function findLoopHeader(db: Db, id: string): Promise<LoopHeader | null> {
   const rows = (await db.query(

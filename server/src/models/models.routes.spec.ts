@@ -34,7 +34,7 @@ describe('models routes', () => {
   const create = async (overrides: Record<string, unknown> = {}) => (await api().post('/models').send({ ...NEW_MODEL, ...overrides }).expect(201)).body;
 
   describe('demo seed', () => {
-    it('holds the six scenario loops, two of them at a retuned second revision, authored by the demo engineer', async () => {
+    it('holds every scenario loop, two of them at a retuned second revision, authored by the demo engineer', async () => {
       const res = await api().get('/models?sort=name&pageSize=50').expect(200);
       const loops = scenarioLoops();
       expect(res.body.total).toBe(loops.length);
@@ -199,8 +199,14 @@ describe('models routes', () => {
       expect(withDeleted.body.items[0].deletedAt).toEqual(expect.any(String));
       await api().put(`/models/${model.id}`).set('If-Match', `"${model.id}-r1"`).send(NEW_MODEL).expect(409);
       await api().delete(`/models/${model.id}`).expect(404);
+      // a browser's cached live copy is not revalidated across the delete (no 304), nor the deleted copy across the restore
+      const deleted = await api().get(`/models/${model.id}?includeDeleted=true`).set('If-None-Match', `"${model.id}-r1"`).expect(200);
+      expect(deleted.headers['etag']).toBe(`"${model.id}-r1-deleted"`);
+      expect(deleted.body.deletedAt).toEqual(expect.any(String));
       const restored = await api().post(`/models/${model.id}/restore`).expect(200);
       expect(restored.body.deletedAt).toBeNull();
+      const live = await api().get(`/models/${model.id}`).set('If-None-Match', `"${model.id}-r1-deleted"`).expect(200);
+      expect(live.headers['etag']).toBe(`"${model.id}-r1"`);
       await api().post(`/models/${model.id}/restore`).expect(409);
       expect(await revisionsInDb(model.id)).toHaveLength(1);
       const rows = await server.context.dataSource.query("SELECT action FROM audit_events WHERE target_id = ? ORDER BY id", [model.id]);

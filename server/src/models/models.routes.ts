@@ -27,7 +27,7 @@ type S = components['schemas'];
 
 function sendModel(res: Response, model: Model, status = 200): void {
   const body: S['Model'] = writable(model);
-  res.status(status).setHeader('ETag', etagOf(model.id, model.revision)).json(body);
+  res.status(status).setHeader('ETag', etagOf(model.id, model.revision, model.deletedAt !== null)).json(body);
 }
 
 function actorOf(req: Request): string | null {
@@ -43,7 +43,7 @@ function flag(req: Request, name: string): boolean {
 
 /**
  * The models routes (mounted under `/api/v1`): list, create, read, update with If-Match, soft delete,
- * restore, history, cached locus, import and export.
+ * restore, history, cached locus, import, export and the tags in use.
  */
 export function modelsRouter(context: AppContext): Router {
   const router = Router();
@@ -69,6 +69,11 @@ export function modelsRouter(context: AppContext): Router {
     const at = now(context);
     res.setHeader('Content-Disposition', `attachment; filename="polewright-models-${at.toISOString().slice(0, 10)}.json"`);
     const body: S['ModelBundle'] = writable(toBundle(all, at));
+    res.json(body);
+  });
+  // literal paths before `/models/:id`, as the document's operation table orders them (api-operations.ts)
+  router.get('/models/tags', async (_req, res) => {
+    const body: S['ModelTags'] = { items: await models.listTags(context) };
     res.json(body);
   });
 

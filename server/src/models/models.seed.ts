@@ -1,5 +1,5 @@
 /*
- * The demo models: the six loops of Quillfield Conveyor Works (demo/scenario.json, an invented company),
+ * The demo models: the loops of Quillfield Conveyor Works (demo/scenario.json, an invented company),
  * each with a first revision, and a second revision on two of them, as an engineer would have saved them.
  */
 import { designGains, locus, type GainRange, type Plant } from '@polewright/locus-core';

@@ -23,6 +23,11 @@ export async function listModels(context: AppContext, query: ModelQuery): Promis
   return { items: items.map(toResource), total, page: query.page, pageSize: query.pageSize };
 }
 
+/** The tags in use on models that are not deleted, with their counts, sorted by tag. */
+export async function listTags(context: AppContext): Promise<{ tag: string; count: number }[]> {
+  return repository.listTags(context.dataSource);
+}
+
 /** A model by id; a deleted one only when `includeDeleted`. Throws `NotFoundError`. */
 export async function getModel(context: AppContext, id: string, includeDeleted = false): Promise<Model> {
   const record = await repository.findModel(context.dataSource, id);

@@ -188,6 +188,26 @@ export interface paths {
         patch?: never;
         trace?: never;
     };
+    "/v1/models/tags": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        /**
+         * Every tag in use on models that are not deleted, with how many carry it, sorted by tag.
+         * @description Needs `models:read` (not available to embed tokens).
+         */
+        get: operations["listModelTags"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
+        trace?: never;
+    };
     "/v1/models/{id}": {
         parameters: {
             query?: never;
@@ -359,7 +379,13 @@ export interface paths {
         delete?: never;
         options?: never;
         head?: never;
-        patch?: never;
+        /**
+         * Change your own name or password; a new password signs out your other sessions.
+         * @description Needs a signed-in session (not an API key or embed token). `newPassword` needs `currentPassword`;
+         *     a missing or wrong one is a 400 at `/currentPassword`. On a password change every other session of
+         *     the caller is revoked at once; the session used for this request stays open.
+         */
+        patch: operations["updateMe"];
         trace?: never;
     };
     "/v1/users": {
@@ -369,7 +395,10 @@ export interface paths {
             path?: never;
             cookie?: never;
         };
-        /** Every user (admin). */
+        /**
+         * Search and page through the users (admin).
+         * @description Without filters every user, by e-mail.
+         */
         get: operations["listUsers"];
         put?: never;
         /** Invite a person by e-mail (admin); the e-mail holds a link to complete sign-up. */
@@ -398,6 +427,29 @@ export interface paths {
         head?: never;
         /** Change a user's role, name, or deactivate / reactivate them (admin). Deactivation ends their sessions. */
         patch: operations["updateUser"];
+        trace?: never;
+    };
+    "/v1/invitations/{token}": {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                token: string;
+            };
+            cookie?: never;
+        };
+        /**
+         * The invitation behind a link (no authentication), to show it before accepting.
+         * @description `state` is `open` while the invitation can be accepted (`POST /v1/invitations/{token}/accept`),
+         *     `used` once accepted, `expired` after `expiresAt`. An unknown token is a 404.
+         */
+        get: operations["getInvitation"];
+        put?: never;
+        post?: never;
+        delete?: never;
+        options?: never;
+        head?: never;
+        patch?: never;
         trace?: never;
     };
     "/v1/invitations/{token}/accept": {
@@ -541,6 +593,8 @@ export interface components {
             version: string;
             /** Format: date-time */
             time: string;
+            /** @description Whether the development mailbox (`GET /v1/dev/mailbox`) is available: not production and no SMTP_URL. */
+            mailbox: boolean;
         };
         /** @enum {string} */
         Role: "admin" | "engineer" | "viewer";
@@ -566,6 +620,15 @@ export interface components {
                 /** Format: date-time */
                 expiresAt: string;
             };
+        };
+        /**
+         * @description What signed-in people may change about themselves. A new password needs the current one
+         *     (`currentPassword`, checked like a sign-in); changing it signs out every other session of theirs.
+         */
+        MeUpdate: {
+            name?: string;
+            currentPassword?: string;
+            newPassword?: components["schemas"]["Password"];
         };
         SignIn: {
             email: components["schemas"]["Email"];
@@ -600,6 +663,16 @@ export interface components {
             total: number;
             page: number;
             pageSize: number;
+        };
+        /** @description An invitation as its link's holder sees it before accepting (`open`) or why it cannot be accepted. */
+        Invitation: {
+            /** @enum {string} */
+            state: "open" | "used" | "expired";
+            email: string;
+            name: string;
+            role: components["schemas"]["Role"];
+            /** Format: date-time */
+            expiresAt: string;
         };
         InvitationAccept: {
             name: string;
@@ -1007,6 +1080,13 @@ export interface components {
             total: number;
             page: number;
             pageSize: number;
+        };
+        /** @description Every tag carried by a model that is not deleted, with how many such models carry it, sorted by tag. */
+        ModelTags: {
+            items: {
+                tag: string;
+                count: number;
+            }[];
         };
         /** @description One saved version of a model (immutable). */
         RevisionSummary: {
@@ -1608,6 +1688,28 @@ export interface operations {
             403: components["responses"]["responses-Forbidden"];
         };
     };
+    listModelTags: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The tags and their counts. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["ModelTags"];
+                };
+            };
+            401: components["responses"]["responses-Unauthorized"];
+            403: components["responses"]["responses-Forbidden"];
+        };
+    };
     getModel: {
         parameters: {
             query?: {
@@ -1875,9 +1977,43 @@ export interface operations {
             403: components["responses"]["responses-Forbidden"];
         };
     };
+    updateMe: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path?: never;
+            cookie?: never;
+        };
+        requestBody: {
+            content: {
+                "application/json": components["schemas"]["MeUpdate"];
+            };
+        };
+        responses: {
+            /** @description The caller after the change. */
+            200: {
+                headers: {
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Me"];
+                };
+            };
+            400: components["responses"]["responses-BadRequest"];
+            401: components["responses"]["responses-Unauthorized"];
+            403: components["responses"]["responses-Forbidden"];
+        };
+    };
     listUsers: {
         parameters: {
             query?: {
+                /** @description Text searched in e-mail and name (case-insensitive substring). */
+                q?: string;
+                role?: components["schemas"]["Role"];
+                status?: "invited" | "active" | "deactivated";
+                sort?: "email" | "name" | "createdAt";
+                /** @description Defaults to `asc` for e-mail and name and `desc` for createdAt. */
+                order?: "asc" | "desc";
                 page?: components["parameters"]["Page"];
                 pageSize?: components["parameters"]["PageSize"];
             };
@@ -1983,6 +2119,32 @@ export interface operations {
             403: components["responses"]["responses-Forbidden"];
             404: components["responses"]["responses-NotFound"];
             409: components["responses"]["responses-Conflict"];
+        };
+    };
+    getInvitation: {
+        parameters: {
+            query?: never;
+            header?: never;
+            path: {
+                token: string;
+            };
+            cookie?: never;
+        };
+        requestBody?: never;
+        responses: {
+            /** @description The invitation. */
+            200: {
+                headers: {
+                    /** @description `no-store`: the state changes. */
+                    "Cache-Control"?: string;
+                    [name: string]: unknown;
+                };
+                content: {
+                    "application/json": components["schemas"]["Invitation"];
+                };
+            };
+            400: components["responses"]["responses-BadRequest"];
+            404: components["responses"]["responses-NotFound"];
         };
     };
     acceptInvitation: {

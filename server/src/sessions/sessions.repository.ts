@@ -23,9 +23,14 @@ export async function revokeSession(context: AppContext, id: string, at: string,
   forgetToken(context, id);
 }
 
-/** Revokes every open session of a user (on deactivation). */
-export async function revokeSessionsOfUser(context: AppContext, userId: string, at: string, manager?: EntityManager): Promise<void> {
-  await sessions(context, manager).createQueryBuilder().update().set({ revokedAt: at }).where('user_id = :userId AND revoked_at IS NULL', { userId }).execute();
+/**
+ * Revokes every open session of a user (on deactivation), or every one but `keep.except` (on a password
+ * change: the session that made it stays open); drops the user's cached principals at once.
+ */
+export async function revokeSessionsOfUser(context: AppContext, userId: string, at: string, manager?: EntityManager, keep: { except?: string } = {}): Promise<void> {
+  const query = sessions(context, manager).createQueryBuilder().update().set({ revokedAt: at }).where('user_id = :userId AND revoked_at IS NULL', { userId });
+  if (keep.except !== undefined) query.andWhere('id <> :except', { except: keep.except });
+  await query.execute();
   forgetUser(context, userId);
 }
 

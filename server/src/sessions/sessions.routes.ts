@@ -4,16 +4,26 @@ import { NotFoundError } from '../http/problem.js';
 import type { components } from '../openapi/api-types.js';
 import { ROLE_PERMISSIONS } from '../auth/permissions.js';
 import { requireSession } from '../auth/authorize.js';
+import type { Principal } from '../auth/principal.js';
 import { userView } from '../users/user-view.js';
 import { findUserById } from '../users/users.repository.js';
+import { updateSelf } from '../users/users.service.js';
 import { findSessionById } from './sessions.repository.js';
 import { signIn, signOut } from './sessions.service.js';
 
 type SignIn = components['schemas']['SignIn'];
 type SessionCreated = components['schemas']['SessionCreated'];
 type Me = components['schemas']['Me'];
+type MeUpdate = components['schemas']['MeUpdate'];
 
-/** `POST /sessions` (sign in), `DELETE /sessions/current` (sign out), `GET /me`. */
+/** The signed-in caller: their user, permissions and the session of this request. */
+async function meOf(context: AppContext, principal: Principal): Promise<Me> {
+  const [user, session] = await Promise.all([findUserById(context, principal.userId ?? ''), findSessionById(context, principal.tokenId)]);
+  if (!user || !session) throw new NotFoundError('The session');
+  return { user: userView(user), permissions: [...ROLE_PERMISSIONS[user.role]], session: { id: session.id, expiresAt: session.expiresAt } };
+}
+
+/** `POST /sessions` (sign in), `DELETE /sessions/current` (sign out), `GET /me` and `PATCH /me` (own name, password). */
 export function sessionsRouter(context: AppContext): Router {
   const router = Router();
   router.post('/sessions', async (req, res) => {
@@ -28,11 +38,12 @@ export function sessionsRouter(context: AppContext): Router {
     res.status(204).end();
   });
   router.get('/me', async (req, res) => {
+    res.json(await meOf(context, requireSession(req.principal)));
+  });
+  router.patch('/me', async (req, res) => {
     const principal = requireSession(req.principal);
-    const [user, session] = await Promise.all([findUserById(context, principal.userId ?? ''), findSessionById(context, principal.tokenId)]);
-    if (!user || !session) throw new NotFoundError('The session');
-    const me: Me = { user: userView(user), permissions: [...ROLE_PERMISSIONS[user.role]], session: { id: session.id, expiresAt: session.expiresAt } };
-    res.json(me);
+    await updateSelf(context, principal, req.body as MeUpdate);
+    res.json(await meOf(context, principal));
   });
   return router;
 }

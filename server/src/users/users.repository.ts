@@ -4,6 +4,7 @@ import type { Role } from '../auth/permissions.js';
 import { forgetUser } from '../auth/token-cache.js';
 import { InvitationEntity, type InvitationRecord } from './invitation.entity.js';
 import { UserEntity, type UserRecord, type UserStatus } from './user.entity.js';
+import type { UserQuery, UserSort } from './user-query.js';
 
 function users(context: AppContext, manager?: EntityManager) {
   return (manager ?? context.dataSource.manager).getRepository(UserEntity);
@@ -24,9 +25,23 @@ export async function countUsers(context: AppContext, where: { role?: Role; stat
   return users(context, manager).countBy(where);
 }
 
-/** One page of users ordered by e-mail, with the total count. */
-export async function listUsers(context: AppContext, page: number, pageSize: number): Promise<{ items: UserRecord[]; total: number }> {
-  const [items, total] = await users(context).findAndCount({ order: { email: 'ASC' }, skip: (page - 1) * pageSize, take: pageSize });
+// names sort without regard to (ASCII) case; ties fall back to the e-mail, which is unique
+const SORT_COLUMNS: Record<UserSort, string> = { email: 'u.email', name: 'u.name COLLATE NOCASE', createdAt: 'u.created_at' };
+
+/** One page of the users matching the query (every user by e-mail by default), with the total count. */
+export async function listUsers(context: AppContext, query: UserQuery, page: number, pageSize: number): Promise<{ items: UserRecord[]; total: number }> {
+  const select = users(context).createQueryBuilder('u');
+  if (query.q) {
+    // SQLite's LIKE ignores case for ASCII letters only; the wildcards of the text itself are escaped
+    const like = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    select.andWhere(`(u.email LIKE :like ESCAPE '\\' OR u.name LIKE :like ESCAPE '\\')`, { like });
+  }
+  if (query.role) select.andWhere('u.role = :role', { role: query.role });
+  if (query.status) select.andWhere('u.status = :status', { status: query.status });
+  const direction = query.order === 'desc' ? 'DESC' : 'ASC';
+  select.orderBy(SORT_COLUMNS[query.sort], direction);
+  if (query.sort !== 'email') select.addOrderBy('u.email', 'ASC');
+  const [items, total] = await select.skip((page - 1) * pageSize).take(pageSize).getManyAndCount();
   return { items, total };
 }
 

@@ -5,16 +5,17 @@ import { NotFoundError } from '../http/problem.js';
 import type { components } from '../openapi/api-types.js';
 import { userView } from './user-view.js';
 import { findUserById, listUsers } from './users.repository.js';
-import { acceptInvitation, changeUser, inviteUser } from './users.service.js';
+import { readUserQuery } from './user-query.js';
+import { acceptInvitation, changeUser, getInvitation, inviteUser } from './users.service.js';
 
 type S = components['schemas'];
 
-/** Admin user management (`/users`) and the public `POST /invitations/{token}/accept`. */
+/** Admin user management (`/users`) and the public `GET /invitations/{token}` and `POST /invitations/{token}/accept`. */
 export function usersRouter(context: AppContext): Router {
   const router = Router();
   router.get('/users', async (req, res) => {
     const { page, pageSize } = pagingOf(req);
-    const { items, total } = await listUsers(context, page, pageSize);
+    const { items, total } = await listUsers(context, readUserQuery(req.query as Record<string, unknown>), page, pageSize);
     const body: S['UserPage'] = { items: items.map(userView), total, page, pageSize };
     res.json(body);
   });
@@ -32,6 +33,12 @@ export function usersRouter(context: AppContext): Router {
   router.patch('/users/:id', async (req, res) => {
     const user = await changeUser(context, req.principal!, req.params['id'] as string, req.body as S['UserUpdate']);
     res.json(userView(user) satisfies S['User']);
+  });
+  router.get('/invitations/:token', async (req, res) => {
+    const { state, invitation, user } = await getInvitation(context, req.params['token'] as string);
+    const body: S['Invitation'] = { state, email: user.email, name: user.name, role: user.role, expiresAt: invitation.expiresAt };
+    // the state changes when the invitation is used or expires: never reuse this answer from a cache
+    res.set('Cache-Control', 'no-store').json(body);
   });
   router.post('/invitations/:token/accept', async (req, res) => {
     const input = req.body as S['InvitationAccept'];

@@ -2,11 +2,11 @@ import { randomUUID } from 'node:crypto';
 import { recordAudit } from '../audit/audit.service.js';
 import type { Role } from '../auth/permissions.js';
 import type { Principal } from '../auth/principal.js';
-import { hashPassword } from '../auth/password.js';
+import { hashPassword, verifyPassword } from '../auth/password.js';
 import { hashToken, newToken } from '../auth/tokens.js';
 import { type AppContext, now } from '../context.js';
 import { inTransaction } from '../db/transaction.js';
-import { ConflictError, NotFoundError } from '../http/problem.js';
+import { ConflictError, InputError, NotFoundError } from '../http/problem.js';
 import { type IssuedSession, openSession } from '../sessions/sessions.service.js';
 import { revokeSessionsOfUser } from '../sessions/sessions.repository.js';
 import type { InvitationRecord } from './invitation.entity.js';
@@ -61,30 +61,33 @@ export async function inviteUser(context: AppContext, actor: Principal, input: I
   return { user, invitationExpiresAt: expiresAt };
 }
 
-/** Whether an invitation can still be accepted (`open`), or why not. */
-export type InvitationState = 'open' | 'used' | 'expired' | 'unknown';
-
-function stateOf(invitation: InvitationRecord | null, iso: string): InvitationState {
-  if (!invitation) return 'unknown';
-  if (invitation.acceptedAt) return 'used';
-  return invitation.expiresAt <= iso ? 'expired' : 'open';
+/** An invitation, the person it invites, and whether it can still be accepted (`open`) or why not, now. */
+export interface FoundInvitation {
+  state: 'open' | 'used' | 'expired';
+  invitation: InvitationRecord;
+  user: UserRecord;
 }
 
-/** The state of the invitation behind a token (the invitation page shows it before asking for a password). */
-export async function invitationState(context: AppContext, token: string): Promise<InvitationState> {
-  return stateOf(await findInvitationByHash(context, hashToken(token)), now(context).toISOString());
+/**
+ * The invitation behind a token with its person and state: the one place the state is worked out, for
+ * `GET /invitations/{token}` (the console shows it before asking for a password) and the accept call.
+ * Throws `NotFoundError` for a token no invitation has.
+ */
+export async function getInvitation(context: AppContext, token: string): Promise<FoundInvitation> {
+  const invitation = await findInvitationByHash(context, hashToken(token));
+  const user = invitation ? await findUserById(context, invitation.userId) : null;
+  if (!invitation || !user) throw new NotFoundError('The invitation');
+  const state = invitation.acceptedAt ? 'used' : invitation.expiresAt <= now(context).toISOString() ? 'expired' : 'open';
+  return { state, invitation, user };
 }
 
 /** Completes sign-up from an invitation token: sets name and password, activates the user and opens a session. */
 export async function acceptInvitation(context: AppContext, token: string, name: string, password: string): Promise<IssuedSession & { user: UserRecord }> {
-  const invitation = await findInvitationByHash(context, hashToken(token));
-  const iso = now(context).toISOString();
-  const state = stateOf(invitation, iso);
-  if (!invitation || state === 'unknown') throw new NotFoundError('The invitation');
+  const { state, invitation, user } = await getInvitation(context, token);
   if (state === 'used') throw new ConflictError('This invitation has been used already; sign in instead.');
   if (state === 'expired') throw new ConflictError('This invitation has expired; ask an admin for a new one.');
-  const user = await findUserById(context, invitation.userId);
-  if (!user || user.status !== 'invited') throw new ConflictError('This account is no longer waiting for its invitation.');
+  if (user.status !== 'invited') throw new ConflictError('This account is no longer waiting for its invitation.');
+  const iso = now(context).toISOString();
   const passwordHash = await hashPassword(password);
   await inTransaction(context.dataSource, async (manager) => {
     await updateUser(context, user.id, { name, passwordHash, status: 'active', updatedAt: iso }, manager);
@@ -117,6 +120,49 @@ export async function changeUser(context: AppContext, actor: Principal, id: stri
     if (next.status === 'deactivated' && user.status !== 'deactivated') await revokeSessionsOfUser(context, id, iso, manager);
     const action = next.status !== user.status ? (next.status === 'deactivated' ? 'user.deactivated' : 'user.reactivated') : 'user.updated';
     await recordAudit(context, { action, actorId: actor.userId, targetType: 'user', targetId: id, detail: { ...changes } }, manager);
+  });
+  return next;
+}
+
+/** What signed-in people may change about themselves (`PATCH /me`). */
+export interface SelfChanges {
+  name?: string;
+  currentPassword?: string;
+  newPassword?: string;
+}
+
+/**
+ * Changes the caller's own name and/or password. A new password needs the current one, checked with the
+ * same scrypt verify as sign-in (a wrong guess costs as much as a sign-in attempt, and is audited); on a
+ * password change every other session of the caller is revoked at once, the one making the request stays.
+ * Throws `InputError` at `/currentPassword` (missing or wrong), `/newPassword` (current password without a
+ * new one) or `/name` (blank). The audit event lists the fields changed, never a password.
+ */
+export async function updateSelf(context: AppContext, actor: Principal, changes: SelfChanges): Promise<UserRecord> {
+  const user = actor.userId ? await findUserById(context, actor.userId) : null;
+  if (!user) throw new NotFoundError('The user');
+  const name = changes.name?.trim();
+  if (name === '') throw InputError.at('/name', 'must not be blank');
+  if (changes.newPassword === undefined && changes.currentPassword !== undefined) {
+    throw InputError.at('/newPassword', 'is required with currentPassword: give the new password, or leave both out');
+  }
+  let passwordHash = user.passwordHash;
+  if (changes.newPassword !== undefined) {
+    if (changes.currentPassword === undefined) throw InputError.at('/currentPassword', 'is required to set a new password');
+    if (!(await verifyPassword(changes.currentPassword, user.passwordHash))) {
+      await recordAudit(context, { action: 'user.update-self.refused', actorId: user.id, targetType: 'user', targetId: user.id, detail: { reason: 'wrong current password' } });
+      throw InputError.at('/currentPassword', 'is not your current password');
+    }
+    passwordHash = await hashPassword(changes.newPassword);
+  }
+  const fields = [...(name !== undefined && name !== user.name ? ['name'] : []), ...(changes.newPassword !== undefined ? ['password'] : [])];
+  if (fields.length === 0) return user;
+  const iso = now(context).toISOString();
+  const next: UserRecord = { ...user, name: name ?? user.name, passwordHash, updatedAt: iso };
+  await inTransaction(context.dataSource, async (manager) => {
+    await updateUser(context, user.id, { name: next.name, passwordHash, updatedAt: iso }, manager);
+    if (fields.includes('password')) await revokeSessionsOfUser(context, user.id, iso, manager, { except: actor.tokenId });
+    await recordAudit(context, { action: 'user.update-self', actorId: user.id, targetType: 'user', targetId: user.id, detail: { fields, otherSessionsRevoked: fields.includes('password') } }, manager);
   });
   return next;
 }
