@@ -4,6 +4,7 @@ import { Strategy as BearerStrategy } from 'passport-http-bearer';
 import type { AppContext } from '../context.js';
 import { UnauthorizedError } from '../http/problem.js';
 import type { Principal } from './principal.js';
+import { requestOrigin } from './request-origin.js';
 import { resolveToken } from './resolve-token.js';
 
 /**
@@ -17,7 +18,7 @@ export function authenticate(context: AppContext): RequestHandler {
   authenticator.use(
     'bearer',
     new BearerStrategy({ passReqToCallback: true }, (req: Request, token: string, done: (error: unknown, principal?: Principal) => void) => {
-      resolveToken(context, token, req.headers.origin).then(
+      resolveToken(context, token, requestOrigin(req)).then(
         (principal) => done(null, principal),
         (error: unknown) => done(error),
       );

@@ -76,7 +76,7 @@ export async function resolveToken(context: AppContext, token: string, origin: s
     throw new UnauthorizedError(EXPIRED[principal.kind]);
   }
   if (principal.kind === 'embed' && (!origin || !(principal.origins ?? []).includes(origin))) {
-    throw new ForbiddenError(origin ? `This embed token is not valid on pages from ${origin}.` : 'An embed token works only from a browser page of one of its origins (Origin header).');
+    throw new ForbiddenError(origin ? `This embed token is not valid on pages from ${origin}.` : 'An embed token works only from a browser page of one of its origins (Origin header, or Sec-Fetch-Site: same-origin on a page of this server).');
   }
   if (principal.kind === 'api-key') await recordKeyUse(context, entry, at);
   return principal;
