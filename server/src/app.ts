@@ -6,10 +6,10 @@ import { auditRouter } from './audit/audit.routes.js';
 import { authenticate } from './auth/authenticate.js';
 import { authorizeOperation, requireAuthorizedOperation } from './auth/authorize-operation.js';
 import { type AppContext, logLine } from './context.js';
+import { embedDemoRouter } from './embed-demo/embed-demo.routes.js';
 import { embedTokensRouter } from './embed-tokens/embed-tokens.routes.js';
 import { healthRouter } from './health/health.routes.js';
 import { embedCorsHeaders, embedPreflight, embedRefusalCors } from './http/embed-cors.js';
-import { invitationPageRouter } from './http/invitation-page.js';
 import { problemHandler, RouteNotFoundError } from './http/problem.js';
 import { rateLimits } from './http/rate-limit.js';
 import { requestId } from './http/request-id.js';
@@ -70,8 +70,8 @@ export function createApp(context: AppContext): Express {
   app.use('/api', healthRouter(context));
   app.use('/api/v1', requireAuthorizedOperation(), apiV1(context));
   app.use('/api', (req, _res, next) => next(new RouteNotFoundError(req.method, req.originalUrl.split('?')[0] ?? '/')));
-  // the link of invitation e-mails, until the console takes the route over (http/invitation-page.ts)
-  app.use(invitationPageRouter(context));
+  // the embedding demo's stand-in for a host backend (mints its embed token), before the static demo/embed
+  app.use(embedDemoRouter(context));
   mountStaticSites(app, log);
   app.use((req, _res, next) => next(new RouteNotFoundError(req.method, req.originalUrl.split('?')[0] ?? '/')));
   app.use(problemHandler((message, error) => (context.log ?? console.error)(`${message}: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}`)));

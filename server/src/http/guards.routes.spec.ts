@@ -22,6 +22,7 @@ describe('guards: every error is problem+json', () => {
     expectProblem(await api().get('/api/v1/no-such-thing').auth(server.tokens.admin, { type: 'bearer' }), 404);
     expectProblem(await api().get('/api/nothing-here'), 404);
     expectProblem(await api().get('/no-such-page'), 404);
+    expectProblem(await api().get('/no-such-file.js').set('Accept', 'text/html,*/*'), 404);
   });
 
   it('405 with Allow for a known route and another method', async () => {

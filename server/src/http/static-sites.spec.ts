@@ -5,7 +5,10 @@ import { join } from 'node:path';
 import express from 'express';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { mountStaticSites } from './static-sites.js';
+import { CONSOLE_SNIPPET_SCRIPTS, isPageNavigation, mountStaticSites } from './static-sites.js';
+
+/** What a browser sends when it navigates to a page. */
+const PAGE = 'text/html,application/xhtml+xml,application/xml;q=0.9,*/*;q=0.8';
 
 const INLINE = "document.body.dataset.ready = 'yes';";
 
@@ -33,15 +36,40 @@ describe('static front ends', () => {
     expect(scriptSrc).not.toContain('unsafe-inline');
   });
 
-  it("serves the console's index.html from its browser/ folder for client-side routes", async () => {
-    expect((await request(app).get('/')).text).toContain('console');
-    expect((await request(app).get('/models/abc')).text).toContain('console');
+  it('lets pages of any origin load the element files (module scripts and fonts are CORS fetches), and only those', async () => {
+    const element = await request(app).get('/elements/').set('Origin', 'https://wiki.quillfield.example');
+    expect(element.headers['access-control-allow-origin']).toBe('*');
+    const home = await request(app).get('/').set('Origin', 'https://wiki.quillfield.example');
+    expect(home.headers['access-control-allow-origin']).toBeUndefined();
   });
 
-  it("leaves /invitations/… to the invitation page instead of the console's fallback", async () => {
-    const res = await request(app).get('/invitations/pwi_x');
-    expect(res.status).toBe(404);
-    expect(res.text).not.toContain('console');
+  it("serves the console's index.html from its browser/ folder for client-side routes", async () => {
+    expect((await request(app).get('/')).text).toContain('console');
+    expect((await request(app).get('/models/abc').set('Accept', PAGE)).text).toContain('console');
+  });
+
+  it('answers only page navigations with the console: a missing file or a script’s request falls through', async () => {
+    expect((await request(app).get('/models/abc').set('Accept', 'application/json')).status).toBe(404);
+    expect((await request(app).get('/models/abc')).status).toBe(404);
+    expect((await request(app).get('/chunk-missing.js').set('Accept', PAGE)).status).toBe(404);
+    expect(isPageNavigation('/models/abc', PAGE)).toBe(true);
+    expect(isPageNavigation('/favicon.ico', PAGE)).toBe(false);
+  });
+
+  it('hands the links of invitation e-mails (/invitations/<token>) to the console', async () => {
+    const res = await request(app).get('/invitations/pwi_x').set('Accept', PAGE);
+    expect(res.status).toBe(200);
+    expect(res.text).toContain('console');
+  });
+
+  it("lets the console frame Blob URL documents and run its snippet's listener script, by hash only", async () => {
+    const csp = (await request(app).get('/models/abc').set('Accept', PAGE)).headers['content-security-policy'] as string;
+    expect(/frame-src ([^;]*)/.exec(csp)?.[1]?.trim()).toBe("'self' blob:");
+    const hash = createHash('sha256').update(CONSOLE_SNIPPET_SCRIPTS[0] as string).digest('base64');
+    expect(/script-src ([^;]*)/.exec(csp)?.[1]?.trim()).toBe(`'self' 'sha256-${hash}'`);
+    expect(CONSOLE_SNIPPET_SCRIPTS[0]).toContain("addEventListener('pw-gain-change'");
+    // the other front ends frame nothing but their own origin (helmet's default-src)
+    expect((await request(app).get('/elements/')).headers['content-security-policy']).not.toContain('frame-src');
   });
 
   it('skips a missing folder with a log line', () => {

@@ -1,4 +1,5 @@
 import type { Routes } from '@angular/router';
+import { unsavedChanges } from './confirm/unsaved-changes';
 import { signedIn, signedOut, withPermission } from './session/guards';
 import { Shell } from './shell/shell';
 
@@ -18,10 +19,10 @@ export const routes: Routes = [
     children: [
       { path: '', pathMatch: 'full', redirectTo: 'models' },
       { path: 'models', title: 'Models', loadComponent: () => import('./models/model-library').then((m) => m.ModelLibrary) },
-      { path: 'models/new', title: 'New model', canActivate: [withPermission('models:write')], loadComponent: () => import('./model-editor/model-editor').then((m) => m.ModelEditor) },
+      { path: 'models/new', title: 'New model', canActivate: [withPermission('models:write')], canDeactivate: [unsavedChanges], loadComponent: () => import('./model-editor/model-editor').then((m) => m.ModelEditor) },
       { path: 'models/:id', title: 'Model', loadComponent: () => import('./model-page/model-page').then((m) => m.ModelPage) },
-      { path: 'models/:id/edit', title: 'Edit model', canActivate: [withPermission('models:write')], loadComponent: () => import('./model-editor/model-editor').then((m) => m.ModelEditor) },
-      { path: 'models/:id/design', title: 'Design', loadComponent: () => import('./design/design-workspace').then((m) => m.DesignWorkspace) },
+      { path: 'models/:id/edit', title: 'Edit model', canActivate: [withPermission('models:write')], canDeactivate: [unsavedChanges], loadComponent: () => import('./model-editor/model-editor').then((m) => m.ModelEditor) },
+      { path: 'models/:id/design', title: 'Design', canDeactivate: [unsavedChanges], loadComponent: () => import('./design/design-workspace').then((m) => m.DesignWorkspace) },
       { path: 'transfer', title: 'Import and export', loadComponent: () => import('./transfer/transfer').then((m) => m.Transfer) },
       { path: 'embed', title: 'Embed', loadComponent: () => import('./embed/embed-builder').then((m) => m.EmbedBuilder) },
       { path: 'keys', title: 'API keys', canActivate: [withPermission('admin')], loadComponent: () => import('./keys/key-list').then((m) => m.KeyList) },

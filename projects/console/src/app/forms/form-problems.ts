@@ -21,7 +21,7 @@ export function controlAtPointer(form: AbstractControl): PointerLocator {
  * them touched so that they show at once, and returns the errors no control could take (for a summary
  * above the form). The next edit of a field re-runs its validators, which clears the server's message.
  */
-export function showProblemOnForm(form: AbstractControl, problem: ApiProblem, locate: PointerLocator = controlAtPointer(form)): FieldProblem[] {
+export function showProblemOnForm(form: AbstractControl, problem: Pick<ApiProblem, 'errors'>, locate: PointerLocator = controlAtPointer(form)): FieldProblem[] {
   const unplaced: FieldProblem[] = [];
   for (const error of problem.errors) {
     const control = locate(error.pointer);

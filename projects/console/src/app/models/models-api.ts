@@ -2,6 +2,7 @@ import { HttpClient, type HttpContext, type HttpEvent, type HttpResponse } from 
 import { inject, Injectable } from '@angular/core';
 import { map, type Observable } from 'rxjs';
 import { API_V1, queryParams } from '../api/api-base';
+import { UPLOAD_HTTP } from '../api/upload-http';
 import type { Model, ModelInput, ModelPage, Revision, RevisionSummary, Schemas } from '../api/api-types';
 import { handles } from '../problem/problem-context';
 
@@ -42,6 +43,7 @@ function etagOf(response: HttpResponse<Model>): TaggedModel {
 export class ModelsApi {
   private readonly http = inject(HttpClient);
   private readonly api = inject(API_V1);
+  private readonly uploads = inject(UPLOAD_HTTP);
 
   /** One page of models (server-side search, tag filter, sort and paging). */
   list(query: ModelQuery): Observable<ModelPage> {
@@ -115,10 +117,14 @@ export class ModelsApi {
     return this.http.get(`${this.api}/models/export`, { params: queryParams({ tag }), observe: 'response', responseType: 'blob' });
   }
 
-  /** Uploads a bundle (.json) or CSV (.csv) with progress events; the last event holds the per-row results. */
+  /**
+   * Uploads a bundle (.json) or CSV (.csv) with upload progress events (through XMLHttpRequest: fetch reports
+   * none); the last event holds the per-row results. An unreadable (400), too large (413) or unsupported
+   * (415) file is shown by the screen.
+   */
   importFile(file: File): Observable<HttpEvent<Schemas['ImportResult']>> {
     const body = new FormData();
     body.append('file', file, file.name);
-    return this.http.post<Schemas['ImportResult']>(`${this.api}/models/import`, body, { observe: 'events', reportProgress: true });
+    return this.uploads.post<Schemas['ImportResult']>(`${this.api}/models/import`, body, { observe: 'events', reportProgress: true, context: handles(400, 413, 415) });
   }
 }

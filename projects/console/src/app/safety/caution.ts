@@ -1,9 +1,7 @@
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
+import { CAUTION } from '@polewright/locus-core';
 
-/** The caution shown wherever the console suggests a gain or calls a loop stable. */
-export const CAUTION_TEXT =
-  'Model-based result, only as good as the plant model. Verify any gain on the real plant with limits and protective interlocks in place, raise it gradually, and defer to local codes, the equipment maker and licensed engineering practice.';
 
 /** A visible safety note beside suggested gains and stability verdicts. */
 @Component({
@@ -40,5 +38,6 @@ export const CAUTION_TEXT =
 export class Caution {
   /** Smaller type, for side panels. */
   readonly compact = input(false);
-  protected readonly text = CAUTION_TEXT;
+  /** The engine's own words, as the elements and the API give them. */
+  protected readonly text = CAUTION;
 }

@@ -23,6 +23,7 @@ export function safeReturnUrl(url: string | null | undefined): string {
   imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule, FieldMessagePipe],
   templateUrl: './sign-in.html',
   styleUrl: './sign-in.scss',
+  host: { class: 'pwc-lone-page' },
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SignIn {
