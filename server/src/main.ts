@@ -13,7 +13,7 @@ async function main(): Promise<void> {
   const stopNotices = startKeyExpiryNotices(context);
   const server = app.listen(config.port, () => {
     const { port } = server.address() as AddressInfo;
-    logLine(context, `Polewright listening on http://localhost:${port} (API /api/v1, docs /api/docs, database ${config.databasePath}${context.mailer.captured ? ', fake SMTP: mail at GET /api/v1/dev/mailbox' : ''})`);
+    logLine(context, `Polewright listening on http://localhost:${port}: console /, API /api/v1, docs /api/docs, embedding demo /embed-demo/ (database ${config.databasePath}${context.mailer.captured ? ', fake SMTP: mail at GET /api/v1/dev/mailbox' : ''})`);
   });
   server.on('error', (error) => {
     console.error(`cannot listen on port ${config.port}: ${error.message}`);

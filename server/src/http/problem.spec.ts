@@ -49,7 +49,7 @@ describe('problem+json mapping', () => {
     expect(p.status).toBe(400);
     expect(p.json.errors).toEqual([
       { pointer: '/plant/gain', detail: 'must be number' },
-      { pointer: '/query/page', detail: 'must be >= 1' },
+      { pointer: '/query/page', detail: 'must be at least 1' },
       { pointer: '/path/token', detail: 'too long' },
     ]);
   });

@@ -4,6 +4,7 @@
  * become a generic 500; their stack is logged with the request id and never sent.
  */
 import type { ErrorRequestHandler, Request, Response } from 'express';
+import { plainValidatorMessage } from './validator-message.js';
 import {
   ConflictError,
   describeIssues,
@@ -120,7 +121,7 @@ function classify(error: unknown): Classified {
   if (typeof e.status === 'number' && Array.isArray(e.errors)) {
     const kind = BY_STATUS.get(e.status) ?? (e.status >= 500 ? KINDS.internal : KINDS.badRequest);
     const items = e.errors as { path?: string; message?: string }[];
-    const errors = kind.status === 400 ? items.map((i) => ({ pointer: pointerOf(String(i.path ?? '')), detail: String(i.message ?? 'invalid') })) : undefined;
+    const errors = kind.status === 400 ? items.map((i) => ({ pointer: pointerOf(String(i.path ?? '')), detail: plainValidatorMessage(String(i.message ?? 'invalid')) })) : undefined;
     const headers: Record<string, string> = {};
     const allow = (e.headers as { Allow?: string } | undefined)?.Allow;
     if (allow) headers['Allow'] = allow;

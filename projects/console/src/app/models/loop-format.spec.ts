@@ -28,7 +28,7 @@ describe('loop format', () => {
     expect(loopDomain({ expression: '1/(s+1)' })).toEqual({ plane: 's', label: 's', note: '' });
     expect(loopDomain({ expression: '1/(s+1)', deadTime: 0.8 })).toEqual({ plane: 's', label: 's', note: 'dead time 0.8 s' });
     expect(loopDomain({ expression: '0.1/(z-0.9)', domain: 'z', sampleTime: 0.00005 })).toEqual({ plane: 'z', label: 'z · T = 50 µs', note: '' });
-    expect(loopDomain({ expression: '1/(38*s+1)', deadTime: 3, discretize: { sampleTime: 2 } })).toEqual({ plane: 'z', label: 'z · T = 2 s', note: 'zero-order hold of s, dead time 3 s' });
+    expect(loopDomain({ expression: '1/(38*s+1)', deadTime: 3, discretize: { sampleTime: 2 } })).toEqual({ plane: 'z', label: 'z · T = 2 s', note: 'ZOH of an s-plant, dead time 3 s' });
   });
 
   it('writes the transfer function of each plant form on one line', () => {

@@ -60,7 +60,7 @@ export function formatCoefficients(values: readonly number[]): string {
 /** How the loop is sampled: its plane and, for z, the sampling period and where it came from. */
 export interface LoopDomain {
   readonly plane: 's' | 'z';
-  /** 's', 'z · T = 2 s', 'z · T = 2 s (zero-order hold of s)'. */
+  /** 's', 'z · T = 2 s', 'z · T = 2 s (ZOH of an s-plant)'. */
   readonly label: string;
   /** Dead time of an s-plant, for a second line ('dead time 0.8 s'), or ''. */
   readonly note: string;
@@ -70,7 +70,7 @@ export interface LoopDomain {
 export function loopDomain(plant: Plant): LoopDomain {
   const deadTime = plant.deadTime ? `dead time ${formatSeconds(plant.deadTime)}` : '';
   if (plant.domain === 'z') return { plane: 'z', label: `z · T = ${plant.sampleTime === undefined ? '?' : formatSeconds(plant.sampleTime)}`, note: deadTime };
-  if (plant.discretize) return { plane: 'z', label: `z · T = ${formatSeconds(plant.discretize.sampleTime)}`, note: ['zero-order hold of s', deadTime].filter(Boolean).join(', ') };
+  if (plant.discretize) return { plane: 'z', label: `z · T = ${formatSeconds(plant.discretize.sampleTime)}`, note: ['ZOH of an s-plant', deadTime].filter(Boolean).join(', ') };
   return { plane: 's', label: 's', note: deadTime };
 }
 
